@@ -1,0 +1,61 @@
+// Seeds the invented demo school. Safe to run again: existing rows are kept as they are.
+import { randomUUID } from 'node:crypto';
+import pg from 'pg';
+import { drizzle } from 'drizzle-orm/node-postgres';
+import { eq } from 'drizzle-orm';
+import * as schema from '../src/db/schema';
+import { hashPassword } from '../src/lib/server/password';
+import { DEMO_CLASS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_SCHOOL } from './demo-people';
+
+if (process.env.NODE_ENV === 'production') {
+  console.error('Refusing to seed demo accounts with NODE_ENV=production.');
+  process.exit(1);
+}
+if (!process.env.DATABASE_URL) {
+  console.error('DATABASE_URL is not set; run through `npm start` or `npm test`.');
+  process.exit(1);
+}
+
+const pool = new pg.Pool({ connectionString: process.env.DATABASE_URL });
+const db = drizzle(pool, { schema });
+const { schools, users, classes, classMembers } = schema;
+
+async function main() {
+  await db.insert(schools).values({ name: DEMO_SCHOOL }).onConflictDoNothing();
+  const [school] = await db.select().from(schools).where(eq(schools.name, DEMO_SCHOOL));
+
+  // One hash for the shared demo password keeps re-seeding quick.
+  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  await db
+    .insert(users)
+    .values(DEMO_PEOPLE.map((p) => ({ id: randomUUID(), name: p.name, email: p.email, role: p.role, passwordHash })))
+    .onConflictDoNothing({ target: users.email });
+  const people = await db.select({ id: users.id, email: users.email }).from(users);
+  const idOf = (email: string) => {
+    const found = people.find((p) => p.email === email);
+    if (!found) throw new Error(`demo user ${email} missing`);
+    return found.id;
+  };
+
+  await db
+    .insert(classes)
+    .values({ name: DEMO_CLASS.name, joinCode: DEMO_CLASS.joinCode, schoolId: school!.id, createdBy: idOf(DEMO_CLASS.instructors[0]!) })
+    .onConflictDoNothing({ target: classes.joinCode });
+  const [cls] = await db.select().from(classes).where(eq(classes.joinCode, DEMO_CLASS.joinCode));
+  await db
+    .insert(classMembers)
+    .values([
+      ...DEMO_CLASS.instructors.map((email) => ({ classId: cls!.id, userId: idOf(email), role: 'instructor' as const })),
+      ...DEMO_CLASS.learners.map((email) => ({ classId: cls!.id, userId: idOf(email), role: 'learner' as const })),
+    ])
+    .onConflictDoNothing();
+
+  console.log(`  ${DEMO_PEOPLE.length} demo people, class "${DEMO_CLASS.name}" (join code ${DEMO_CLASS.joinCode})`);
+}
+
+main()
+  .catch((err) => {
+    console.error(err);
+    process.exitCode = 1;
+  })
+  .finally(() => pool.end());

@@ -1,0 +1,37 @@
+export const ROLES = ['learner', 'instructor', 'admin'] as const;
+export type Role = (typeof ROLES)[number];
+
+/** The signed-in user as pages and endpoints see it (never the password hash). */
+export interface SessionUser {
+  id: string;
+  name: string;
+  email: string;
+  role: Role;
+}
+
+/** Where each role lands after sign-in. */
+export function homePathFor(role: Role): string {
+  switch (role) {
+    case 'learner':
+      return '/learn';
+    case 'instructor':
+      return '/teach';
+    case 'admin':
+      return '/admin/users';
+  }
+}
+
+/** Links the top bar shows for a role. */
+export function navLinksFor(role: Role): { href: string; label: string }[] {
+  switch (role) {
+    case 'learner':
+      return [{ href: '/learn', label: 'My bench' }];
+    case 'instructor':
+      return [{ href: '/teach', label: 'My classes' }];
+    case 'admin':
+      return [
+        { href: '/admin/users', label: 'People' },
+        { href: '/teach', label: 'Classes' },
+      ];
+  }
+}

@@ -1,0 +1,36 @@
+import { z } from 'zod';
+import { ROLES } from '../roles';
+
+// Shared by the JSON endpoints and the HTML forms so both refuse the same input the same way.
+
+const email = z
+  .string({ required_error: 'E-mail is required' })
+  .trim()
+  .toLowerCase()
+  .min(3, 'E-mail is required')
+  .max(254, 'E-mail is too long')
+  .email('Enter a valid e-mail address');
+
+export const signUpSchema = z.object({
+  name: z
+    .string({ required_error: 'Name is required' })
+    .trim()
+    .min(1, 'Name is required')
+    .max(80, 'Name is at most 80 characters'),
+  email,
+  password: z
+    .string({ required_error: 'Password is required' })
+    .min(10, 'Password needs at least 10 characters')
+    .max(200, 'Password is at most 200 characters'),
+});
+export type SignUpInput = z.infer<typeof signUpSchema>;
+
+export const signInSchema = z.object({
+  email,
+  password: z.string({ required_error: 'Password is required' }).min(1, 'Password is required').max(200),
+});
+export type SignInInput = z.infer<typeof signInSchema>;
+
+export const roleChangeSchema = z.object({
+  role: z.enum(ROLES, { errorMap: () => ({ message: `Role must be one of ${ROLES.join(', ')}` }) }),
+});

@@ -1,0 +1,20 @@
+import { expect, type Page } from '@playwright/test';
+
+export const DEMO_PASSWORD = 'wren-bench-160';
+
+export async function signIn(page: Page, email: string, password = DEMO_PASSWORD) {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+export async function signOut(page: Page) {
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await expect(page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Sign in' })).toBeVisible();
+}
+
+/** Screenshots kept with the test output, named for what they show. */
+export function shot(page: Page, name: string) {
+  return page.screenshot({ path: `test-results/screens/${name}.png`, fullPage: true });
+}
