@@ -5,6 +5,8 @@ import { drizzle } from 'drizzle-orm/node-postgres';
 import { eq } from 'drizzle-orm';
 import * as schema from '../src/db/schema';
 import { hashPassword } from '../src/lib/server/password';
+import { publishProcedure } from '../src/lib/server/procedure-store';
+import { DEMO_PROCEDURES } from '../models/procedures';
 import { DEMO_CLASS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_SCHOOL } from './demo-people';
 
 if (process.env.NODE_ENV === 'production') {
@@ -51,6 +53,16 @@ async function main() {
     .onConflictDoNothing();
 
   console.log(`  ${DEMO_PEOPLE.length} demo people, class "${DEMO_CLASS.name}" (join code ${DEMO_CLASS.joinCode})`);
+
+  // A changed demo file becomes a new version; an unchanged one writes nothing.
+  for (const doc of DEMO_PROCEDURES) {
+    const published = await publishProcedure(db, doc);
+    if (!published.ok) {
+      throw new Error(`demo procedure ${doc.slug} is invalid:\n${published.issues.map((i) => `  ${i.path}: ${i.message}`).join('\n')}`);
+    }
+    const { version, created } = published;
+    console.log(`  procedure ${version.slug} v${version.version}${created ? ' published' : ' unchanged'}`);
+  }
 }
 
 main()

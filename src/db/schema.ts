@@ -1,4 +1,6 @@
-import { pgTable, pgEnum, text, timestamp, integer, uuid, primaryKey, index } from 'drizzle-orm/pg-core';
+import { pgTable, pgEnum, text, timestamp, integer, uuid, primaryKey, index, jsonb, boolean, unique } from 'drizzle-orm/pg-core';
+import { STAGES, type Procedure } from '../lib/procedure/schema';
+import type { StepResult } from '../lib/scoring/types';
 
 export const roleEnum = pgEnum('role', ['learner', 'instructor', 'admin']);
 export const classRoleEnum = pgEnum('class_role', ['instructor', 'learner']);
@@ -62,6 +64,57 @@ export const classMembers = pgTable(
     joinedAt: timestamp('joined_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [primaryKey({ columns: [t.classId, t.userId] }), index('class_members_user_idx').on(t.userId)],
+);
+
+/** A procedure by its slug; its content lives in immutable versions. */
+export const procedures = pgTable('procedures', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  slug: text('slug').notNull().unique(),
+  createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** One published version: the whole validated document and its SHA-256; a trigger refuses updates. */
+export const procedureVersions = pgTable(
+  'procedure_versions',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    procedureId: uuid('procedure_id')
+      .notNull()
+      .references(() => procedures.id, { onDelete: 'restrict' }),
+    version: integer('version').notNull(),
+    title: text('title').notNull(),
+    document: jsonb('document').$type<Procedure>().notNull(),
+    checksum: text('checksum').notNull(),
+    publishedAt: timestamp('published_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique('procedure_versions_procedure_version_uq').on(t.procedureId, t.version)],
+);
+
+export const stageEnum = pgEnum('stage', STAGES);
+
+/** One learner's scored submission of one stage; clientId makes a retried submit idempotent. */
+export const attempts = pgTable(
+  'attempts',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    clientId: uuid('client_id').notNull(),
+    procedureVersionId: uuid('procedure_version_id')
+      .notNull()
+      .references(() => procedureVersions.id, { onDelete: 'restrict' }),
+    stage: stageEnum('stage').notNull(),
+    answer: jsonb('answer').notNull(),
+    score: integer('score').notNull(),
+    maxScore: integer('max_score').notNull(),
+    passed: boolean('passed').notNull(),
+    results: jsonb('results').$type<StepResult[]>().notNull(),
+    notes: jsonb('notes').$type<string[]>().notNull().default([]),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique('attempts_user_client_uq').on(t.userId, t.clientId), index('attempts_user_created_idx').on(t.userId, t.createdAt)],
 );
 
 export type UserRow = typeof users.$inferSelect;

@@ -1,0 +1,100 @@
+import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
+import pg from 'pg';
+import { drizzle } from 'drizzle-orm/node-postgres';
+import * as schema from '../../src/db/schema';
+import { attemptRequestSchema } from '../../src/lib/schemas/attempts';
+import { scoreAttempt } from '../../src/lib/scoring';
+import { findVersion } from '../../src/lib/server/procedure-store';
+
+// Baseline for POST /api/attempts without Astro, sessions or the clientId pre-check: read the JSON,
+// validate it, look the version up, score, insert the same row. Run as a child of the benchmark.
+
+const { DATABASE_URL, PORT, BENCH_USER_ID } = process.env;
+if (!DATABASE_URL || !PORT || !BENCH_USER_ID) {
+  console.error('baseline-server needs DATABASE_URL, PORT and BENCH_USER_ID');
+  process.exit(1);
+}
+const userId = BENCH_USER_ID;
+
+// Same pool size as the app's db module, so both have the same number of database connections.
+const pool = new pg.Pool({ connectionString: DATABASE_URL, max: 10 });
+const db = drizzle(pool, { schema });
+const { attempts } = schema;
+
+function send(res: ServerResponse, status: number, body: unknown): void {
+  const text = JSON.stringify(body);
+  res.writeHead(status, { 'content-type': 'application/json', 'content-length': Buffer.byteLength(text) });
+  res.end(text);
+}
+
+async function readBody(req: IncomingMessage): Promise<string> {
+  const chunks: Buffer[] = [];
+  for await (const chunk of req) chunks.push(chunk as Buffer);
+  return Buffer.concat(chunks).toString('utf8');
+}
+
+async function postAttempt(req: IncomingMessage, res: ServerResponse): Promise<void> {
+  let body: unknown;
+  try {
+    body = JSON.parse(await readBody(req));
+  } catch {
+    return send(res, 400, { error: 'The body is not valid JSON' });
+  }
+  const parsed = attemptRequestSchema.safeParse(body);
+  if (!parsed.success) return send(res, 400, { error: parsed.error.issues[0]?.message ?? 'Invalid input' });
+  const input = parsed.data;
+
+  const stored = await findVersion(db, input.procedure, input.version);
+  if (!stored) return send(res, 404, { error: `No procedure "${input.procedure}"` });
+  const scored = scoreAttempt(stored.document, input.stage, input.answer);
+  if (!scored.ok) return send(res, 400, { error: scored.issues[0]?.message ?? 'The answer is not valid', issues: scored.issues });
+
+  const { score } = scored;
+  const [row] = await db
+    .insert(attempts)
+    .values({
+      userId,
+      clientId: input.clientId,
+      procedureVersionId: stored.id,
+      stage: input.stage,
+      answer: input.answer as object,
+      score: score.score,
+      maxScore: score.maxScore,
+      passed: score.passed,
+      results: score.results,
+      notes: score.notes ?? [],
+    })
+    .onConflictDoNothing({ target: [attempts.userId, attempts.clientId] })
+    .returning({ id: attempts.id, createdAt: attempts.createdAt });
+  if (!row) return send(res, 409, { error: 'This clientId was already used' });
+  send(res, 201, {
+    id: row.id,
+    procedure: stored.slug,
+    version: stored.version,
+    stage: input.stage,
+    score: score.score,
+    maxScore: score.maxScore,
+    passed: score.passed,
+    results: score.results,
+    notes: score.notes ?? [],
+    answer: input.answer,
+    learnerId: userId,
+    createdAt: row.createdAt,
+  });
+}
+
+const server = createServer((req, res) => {
+  if (req.method === 'GET' && req.url === '/health') return send(res, 200, { ok: true });
+  if (req.method !== 'POST' || req.url !== '/api/attempts') return send(res, 404, { error: 'Not found' });
+  postAttempt(req, res).catch((err: unknown) => {
+    console.error(err);
+    if (!res.headersSent) send(res, 500, { error: 'Internal error' });
+  });
+});
+
+server.listen(Number(PORT), '127.0.0.1');
+process.once('SIGTERM', () => {
+  server.close();
+  server.closeAllConnections();
+  void pool.end().finally(() => process.exit(0));
+});

@@ -1,0 +1,16 @@
+import type { APIRoute } from 'astro';
+import { z } from 'zod';
+import { attemptForViewer, attemptJson } from '../../../lib/server/attempts';
+import { requireRole } from '../../../lib/server/guard';
+import { jsonError } from '../../../lib/server/http';
+
+/** An attempt, for its learner, the learner's instructors and admins; anyone else gets 404. */
+export const GET: APIRoute = async ({ locals, params }) => {
+  const gate = requireRole(locals);
+  if (!gate.ok) return gate.response;
+  const id = z.string().uuid().safeParse(params.id);
+  if (!id.success) return jsonError(404, 'No such attempt');
+  const attempt = await attemptForViewer(gate.user, id.data);
+  if (!attempt) return jsonError(404, 'No such attempt');
+  return Response.json(attemptJson(attempt));
+};

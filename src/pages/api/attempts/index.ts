@@ -1,0 +1,28 @@
+import type { APIRoute } from 'astro';
+import { attemptRequestSchema } from '../../../lib/schemas/attempts';
+import { attemptJson, recordAttempt } from '../../../lib/server/attempts';
+import { requireRole } from '../../../lib/server/guard';
+import { jsonError, readJson, validationError } from '../../../lib/server/http';
+
+/** Scores one stage on the server and keeps it; a repeated clientId returns the stored attempt. */
+export const POST: APIRoute = async ({ locals, request }) => {
+  const gate = requireRole(locals);
+  if (!gate.ok) return gate.response;
+  const body = await readJson(request);
+  if (!body.ok) return body.response;
+  const parsed = attemptRequestSchema.safeParse(body.body);
+  if (!parsed.success) return validationError(parsed.error);
+
+  const result = await recordAttempt(gate.user, parsed.data);
+  switch (result.kind) {
+    case 'unknown-procedure':
+      return jsonError(404, `No procedure "${parsed.data.procedure}"${parsed.data.version ? ` version ${parsed.data.version}` : ''}`);
+    case 'invalid':
+      return Response.json({ error: result.issues[0]?.message ?? 'The answer is not valid', issues: result.issues }, { status: 400 });
+    case 'client-id-reused':
+      return jsonError(409, 'This clientId was already used for a different attempt');
+    case 'created':
+    case 'replayed':
+      return Response.json(attemptJson(result.attempt), { status: result.kind === 'created' ? 201 : 200 });
+  }
+};
