@@ -4,6 +4,7 @@ import { drizzle } from 'drizzle-orm/node-postgres';
 import * as schema from '../../src/db/schema';
 import { attemptRequestSchema } from '../../src/lib/schemas/attempts';
 import { scoreAttempt } from '../../src/lib/scoring';
+import { attemptRow } from '../../src/lib/server/attempt-row';
 import { findVersion } from '../../src/lib/server/procedure-store';
 
 // Baseline for POST /api/attempts without Astro, sessions or the clientId pre-check: read the JSON,
@@ -52,18 +53,7 @@ async function postAttempt(req: IncomingMessage, res: ServerResponse): Promise<v
   const { score } = scored;
   const [row] = await db
     .insert(attempts)
-    .values({
-      userId,
-      clientId: input.clientId,
-      procedureVersionId: stored.id,
-      stage: input.stage,
-      answer: input.answer as object,
-      score: score.score,
-      maxScore: score.maxScore,
-      passed: score.passed,
-      results: score.results,
-      notes: score.notes ?? [],
-    })
+    .values(attemptRow(userId, input, stored.id, score))
     .onConflictDoNothing({ target: [attempts.userId, attempts.clientId] })
     .returning({ id: attempts.id, createdAt: attempts.createdAt });
   if (!row) return send(res, 409, { error: 'This clientId was already used' });

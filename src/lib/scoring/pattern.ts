@@ -3,6 +3,7 @@ import { checkSequence, RULE_DESCRIPTIONS, type BoltPosition } from '../patterns
 import { formatNumber, formatTorque } from '../torque';
 import { passSchedule } from '../wrench';
 import type { PatternAnswer } from './answers';
+import { markPerResult } from './marks';
 import type { StageScore, StepResult } from './types';
 
 // Pattern stage: the learner gives each pass's torque and tightening sequence. One point per pass
@@ -96,13 +97,5 @@ export function scorePattern(
     results.push(torque);
   });
 
-  const score = results.filter((r) => r.ok).length;
-  return {
-    stage: 'pattern',
-    score,
-    maxScore: results.length,
-    passed: score === results.length,
-    results,
-    notes: [`Passes for this group: ${plan}.`, RULE_DESCRIPTIONS[group.rule]],
-  };
+  return markPerResult('pattern', results, [`Passes for this group: ${plan}.`, RULE_DESCRIPTIONS[group.rule]]);
 }

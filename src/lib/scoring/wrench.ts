@@ -2,6 +2,7 @@ import type { TorqueSpec, WrenchTask } from '../procedure/schema';
 import { convertTorque, formatNumber, formatTorque, isTorqueUnit } from '../torque';
 import { wrenchSetting, type WrenchSetting } from '../wrench';
 import type { WrenchAnswer } from './answers';
+import { markPerResult } from './marks';
 import type { StageScore, StepResult } from './types';
 
 // Wrench stage: the learner dials the setting for the wrench on the bench. One point for the unit
@@ -63,14 +64,5 @@ export function scoreWrench(task: WrenchTask, spec: TorqueSpec, answer: WrenchAn
     };
   }
 
-  const results = [unitResult, settingResult];
-  const score = results.filter((r) => r.ok).length;
-  return {
-    stage: 'wrench',
-    score,
-    maxScore: results.length,
-    passed: score === results.length,
-    results,
-    notes: worked.steps,
-  };
+  return markPerResult('wrench', [unitResult, settingResult], worked.steps);
 }

@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm';
 import { db } from './db';
 import { attempts, classMembers, procedures, procedureVersions } from '../../db/schema';
+import { attemptRow } from './attempt-row';
 import { findVersion } from './procedure-store';
 import { scoreAttempt } from '../scoring';
 import type { Issue } from '../procedure/validate';
@@ -64,29 +65,29 @@ export async function recordAttempt(user: SessionUser, input: AttemptRequest): P
   const scored = scoreAttempt(stored.document, input.stage, input.answer);
   if (!scored.ok) return { kind: 'invalid', issues: scored.issues };
 
-  const { score } = scored;
-  const row = {
-    userId: user.id,
-    clientId: input.clientId,
-    procedureVersionId: stored.id,
-    stage: input.stage,
-    answer: input.answer as object,
-    score: score.score,
-    maxScore: score.maxScore,
-    passed: score.passed,
-    results: score.results,
-    notes: score.notes ?? [],
-  };
+  const row = attemptRow(user.id, input, stored.id, scored.score);
   const [inserted] = await db
     .insert(attempts)
     .values(row)
     .onConflictDoNothing({ target: [attempts.userId, attempts.clientId] })
     .returning({ id: attempts.id, createdAt: attempts.createdAt });
   if (inserted) {
-    const { userId, procedureVersionId: _v, clientId: _c, ...rest } = row;
+    const { score } = scored;
     return {
       kind: 'created',
-      attempt: { ...rest, ...inserted, learnerId: userId, procedure: stored.slug, version: stored.version },
+      attempt: {
+        ...inserted,
+        learnerId: user.id,
+        procedure: stored.slug,
+        version: stored.version,
+        stage: input.stage,
+        score: score.score,
+        maxScore: score.maxScore,
+        passed: score.passed,
+        results: score.results,
+        notes: score.notes ?? [],
+        answer: input.answer,
+      },
     };
   }
   // This clientId was used before (a retry, or a race with one): answer with the stored row.
