@@ -1,6 +1,8 @@
 import { pgTable, pgEnum, text, timestamp, integer, uuid, primaryKey, index, jsonb, boolean, unique } from 'drizzle-orm/pg-core';
 import { STAGES, type Procedure } from '../lib/procedure/schema';
 import type { StepResult } from '../lib/scoring/types';
+import type { z } from 'zod';
+import type { draftsSchema } from '../lib/schemas/drafts';
 
 export const roleEnum = pgEnum('role', ['learner', 'instructor', 'admin']);
 export const classRoleEnum = pgEnum('class_role', ['instructor', 'learner']);
@@ -115,6 +117,24 @@ export const attempts = pgTable(
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [unique('attempts_user_client_uq').on(t.userId, t.clientId), index('attempts_user_created_idx').on(t.userId, t.createdAt)],
+);
+
+/** A learner's work in progress on one procedure version; the copy made last (savedAt) wins. */
+export const attemptDrafts = pgTable(
+  'attempt_drafts',
+  {
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    procedureVersionId: uuid('procedure_version_id')
+      .notNull()
+      .references(() => procedureVersions.id, { onDelete: 'restrict' }),
+    drafts: jsonb('drafts').$type<z.infer<typeof draftsSchema>>().notNull(),
+    // When the browser made the copy (a future date is stored as the server's now); updatedAt is when it was stored.
+    savedAt: timestamp('saved_at', { withTimezone: true, mode: 'date' }).notNull(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.procedureVersionId] })],
 );
 
 export type UserRow = typeof users.$inferSelect;

@@ -25,9 +25,15 @@ export function homePathFor(role: Role): string {
 export function navLinksFor(role: Role): { href: string; label: string }[] {
   switch (role) {
     case 'learner':
-      return [{ href: '/learn', label: 'My bench' }];
+      return [
+        { href: '/learn', label: 'My bench' },
+        { href: '/train', label: 'Practise' },
+      ];
     case 'instructor':
-      return [{ href: '/teach', label: 'My classes' }];
+      return [
+        { href: '/teach', label: 'My classes' },
+        { href: '/train', label: 'Procedures' },
+      ];
     case 'admin':
       return [
         { href: '/admin/users', label: 'People' },

@@ -2,7 +2,7 @@ import type { APIRoute } from 'astro';
 import { toPublicProcedure } from '../../../lib/procedure/public-view';
 import { db } from '../../../lib/server/db';
 import { requireRole } from '../../../lib/server/guard';
-import { jsonError } from '../../../lib/server/http';
+import { jsonError, versionParam } from '../../../lib/server/http';
 import { findVersion } from '../../../lib/server/procedure-store';
 
 /**
@@ -12,9 +12,8 @@ import { findVersion } from '../../../lib/server/procedure-store';
 export const GET: APIRoute = async ({ locals, params, url }) => {
   const gate = requireRole(locals);
   if (!gate.ok) return gate.response;
-  const versionParam = url.searchParams.get('version');
-  const version = versionParam === null ? undefined : Number(versionParam);
-  if (version !== undefined && (!Number.isInteger(version) || version < 1)) {
+  const version = versionParam(url);
+  if (version === null) {
     return jsonError(400, 'version must be a whole number from 1', { version: ['Not a version number'] });
   }
   const stored = await findVersion(db, params.slug ?? '', version);

@@ -1,0 +1,68 @@
+import type { Stage } from '../../lib/procedure/schema';
+import { ApiError, submitAttempt } from './api';
+import { useTrainer, useTrainerStore } from './context';
+import { answerFor } from './store';
+
+// "Check this stage": sends the stage's answer to be scored. A check that got no answer keeps its
+// clientId, so sending the same work again cannot make a second attempt on the server.
+
+interface PendingCheck {
+  clientId: string;
+  answer: string;
+}
+const pendingChecks = new Map<string, PendingCheck>();
+
+/** crypto.randomUUID needs a secure context; a school server on plain HTTP still gets a v4 UUID. */
+export function newClientId(): string {
+  if (typeof crypto.randomUUID === 'function') return crypto.randomUUID();
+  const bytes = crypto.getRandomValues(new Uint8Array(16));
+  bytes[6] = (bytes[6]! & 0x0f) | 0x40;
+  bytes[8] = (bytes[8]! & 0x3f) | 0x80;
+  const hex = [...bytes].map((b) => b.toString(16).padStart(2, '0')).join('');
+  return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-${hex.slice(12, 16)}-${hex.slice(16, 20)}-${hex.slice(20)}`;
+}
+
+export function CheckStage({ stage }: { stage: Stage }) {
+  const store = useTrainerStore();
+  const submitting = useTrainer((s) => s.submitting);
+  const error = useTrainer((s) => s.submitError);
+  const scored = useTrainer((s) => Boolean(s.results[stage]));
+
+  const check = async () => {
+    const { procedure, drafts } = store.getState();
+    const answer = answerFor(stage, drafts);
+    const answerText = JSON.stringify(answer);
+    const slot = `${procedure.slug}:${procedure.version}:${stage}`;
+    // Changed work is a new attempt; the same work after a failure is a retry of the old one.
+    let pending = pendingChecks.get(slot);
+    if (!pending || pending.answer !== answerText) {
+      pending = { clientId: newClientId(), answer: answerText };
+      pendingChecks.set(slot, pending);
+    }
+    store.getState().setSubmitting(stage);
+    try {
+      const result = await submitAttempt({ procedure: procedure.slug, version: procedure.version, stage, answer, clientId: pending.clientId });
+      pendingChecks.delete(slot);
+      store.getState().setSubmitting(null);
+      store.getState().setResult(stage, result);
+    } catch (err) {
+      const message = err instanceof ApiError ? err.message : 'The check failed. Your work is kept; try again.';
+      // Shown in a role="alert" paragraph below, which screen readers read at once.
+      store.getState().setSubmitting(null, message);
+    }
+  };
+
+  const busy = submitting !== null;
+  return (
+    <div className="mt-5 border-t border-steel-200 pt-4">
+      <button type="button" className="btn-primary w-full sm:w-auto" disabled={busy} onClick={() => void check()}>
+        {submitting === stage ? 'Checking…' : scored ? 'Check this stage again' : 'Check this stage'}
+      </button>
+      {error && (
+        <p className="field-error" role="alert">
+          <span aria-hidden="true">⚠</span> {error}
+        </p>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,153 @@
+import type { Stage } from '../../lib/procedure/schema';
+import type { AttemptResult, Drafts } from './store';
+
+// The trainer's calls to the server. `fetchImpl` is injectable so the draft saver can be tested without a browser.
+
+export type FetchLike = (input: string, init?: RequestInit) => Promise<Response>;
+
+const defaultFetch: FetchLike = (input, init) => fetch(input, init);
+
+/** A failed request, with words a learner can act on. `status` is 0 when the network failed. */
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    message: string,
+  ) {
+    super(message);
+    this.name = 'ApiError';
+  }
+}
+
+async function errorText(response: Response): Promise<string | null> {
+  try {
+    const body: unknown = await response.json();
+    if (body && typeof body === 'object' && 'error' in body && typeof body.error === 'string') return body.error;
+  } catch {
+    // Not JSON (a proxy's error page): the status alone has to do.
+  }
+  return null;
+}
+
+export interface SubmitRequest {
+  procedure: string;
+  version: number;
+  stage: Stage;
+  answer: unknown;
+  clientId: string;
+}
+
+/** POSTs JSON; a network failure becomes an ApiError with status 0 and the given words. */
+async function postJson(path: string, body: unknown, offlineMessage: string, fetchImpl: FetchLike): Promise<Response> {
+  try {
+    return await fetchImpl(path, {
+      method: 'POST',
+      credentials: 'same-origin',
+      headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
+      body: JSON.stringify(body),
+    });
+  } catch {
+    throw new ApiError(0, offlineMessage);
+  }
+}
+
+/** POST /api/attempts; throws ApiError with a message fit to show. */
+export async function submitAttempt(request: SubmitRequest, fetchImpl: FetchLike = defaultFetch): Promise<AttemptResult> {
+  const response = await postJson(
+    '/api/attempts',
+    request,
+    'No connection to the server. Your work is kept; check again when you are back online.',
+    fetchImpl,
+  );
+  if (response.ok) {
+    const body = (await response.json()) as AttemptResult;
+    return { id: body.id, score: body.score, maxScore: body.maxScore, passed: body.passed, results: body.results, notes: body.notes ?? [] };
+  }
+  const text = await errorText(response);
+  if (response.status === 401) throw new ApiError(401, 'You are signed out. Sign in again in another tab, then check again; your work is kept.');
+  if (response.status >= 500) throw new ApiError(response.status, 'The server could not score this just now. Your work is kept; try again in a moment.');
+  throw new ApiError(response.status, text ?? `The server refused the check (${response.status}).`);
+}
+
+export interface DraftCopy {
+  drafts: Partial<Drafts>;
+  savedAt: string;
+}
+
+export type LoadDraftOutcome =
+  | { kind: 'loaded'; copy: DraftCopy | null }
+  /** Network down, 5xx or signed out: worth asking again later. */
+  | { kind: 'unreachable'; status: number }
+  | { kind: 'refused'; status: number };
+
+export type SaveDraftOutcome =
+  | { kind: 'saved' }
+  /** The server holds a newer copy (409). */
+  | { kind: 'conflict' }
+  | { kind: 'unreachable'; status: number }
+  | { kind: 'refused'; status: number };
+
+const draftUrl = (slug: string, version: number) => `/api/drafts/${encodeURIComponent(slug)}?version=${version}`;
+
+/** Statuses a later retry can fix: the network, the server, a lapsed session, a rate limit. */
+const retryable = (status: number) => status === 0 || status >= 500 || status === 401 || status === 408 || status === 429;
+
+/** GET /api/drafts/:slug?version=N → the saved copy, or null when there is none. */
+export async function loadDraft(slug: string, version: number, fetchImpl: FetchLike = defaultFetch): Promise<LoadDraftOutcome> {
+  let response: Response;
+  try {
+    response = await fetchImpl(draftUrl(slug, version), { credentials: 'same-origin', headers: { Accept: 'application/json' } });
+  } catch {
+    return { kind: 'unreachable', status: 0 };
+  }
+  if (!response.ok) return retryable(response.status) ? { kind: 'unreachable', status: response.status } : { kind: 'refused', status: response.status };
+  try {
+    const body = (await response.json()) as { drafts?: Partial<Drafts> | null; savedAt?: string | null };
+    return { kind: 'loaded', copy: body.drafts && body.savedAt ? { drafts: body.drafts, savedAt: body.savedAt } : null };
+  } catch {
+    return { kind: 'unreachable', status: response.status };
+  }
+}
+
+/** PUT /api/drafts/:slug?version=N {drafts, savedAt} → 204. */
+export async function saveDraft(slug: string, version: number, copy: DraftCopy, fetchImpl: FetchLike = defaultFetch): Promise<SaveDraftOutcome> {
+  let response: Response;
+  try {
+    response = await fetchImpl(draftUrl(slug, version), {
+      method: 'PUT',
+      credentials: 'same-origin',
+      headers: { 'Content-Type': 'application/json' },
+      body: JSON.stringify(copy),
+      // Lets the last save finish when the tab closes.
+      keepalive: true,
+    });
+  } catch {
+    return { kind: 'unreachable', status: 0 };
+  }
+  if (response.ok) return { kind: 'saved' };
+  if (response.status === 409) return { kind: 'conflict' };
+  return retryable(response.status) ? { kind: 'unreachable', status: response.status } : { kind: 'refused', status: response.status };
+}
+
+export interface WrenchCalcRequest {
+  torque: number;
+  unit: string;
+  toUnit: string;
+  wrenchLength?: number;
+  extension?: number;
+  lengthUnit?: 'in' | 'mm';
+  direction?: 'forward' | 'back';
+}
+export interface WrenchCalcAnswer {
+  setting: number;
+  unit: string;
+  steps: string[];
+}
+
+/** POST /api/tools/wrench-setting with the learner's own numbers. */
+export async function calculateWrenchSetting(request: WrenchCalcRequest, fetchImpl: FetchLike = defaultFetch): Promise<WrenchCalcAnswer> {
+  const response = await postJson('/api/tools/wrench-setting', request, 'No connection to the server: the calculator needs it.', fetchImpl);
+  if (response.ok) return (await response.json()) as WrenchCalcAnswer;
+  const body = (await response.json().catch(() => null)) as { error?: string; fields?: Record<string, string[]> } | null;
+  const fieldText = body?.fields ? Object.values(body.fields).flat().join('; ') : '';
+  throw new ApiError(response.status, fieldText || body?.error || `The calculator could not answer (${response.status}).`);
+}
