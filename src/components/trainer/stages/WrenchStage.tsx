@@ -70,18 +70,7 @@ export default function WrenchStage() {
               </button>
             </div>
           </div>
-          <div>
-            <label htmlFor="dial-unit" className="field-label">
-              Unit
-            </label>
-            <select id="dial-unit" className="field-input w-32" value={draft.unit} onChange={(e) => setWrench(draft.setting, e.target.value as TorqueUnit)}>
-              {TORQUE_UNIT_IDS.map((u) => (
-                <option key={u} value={u}>
-                  {u}
-                </option>
-              ))}
-            </select>
-          </div>
+          <UnitSelect label="Unit" id="dial-unit" className="w-32" value={draft.unit} onChange={(e) => setWrench(draft.setting, e.target.value as TorqueUnit)} />
         </div>
         <p className="mt-2 text-steel-800">
           The dial shows:{' '}
@@ -203,13 +192,25 @@ function Calculator() {
   );
 }
 
-function UnitSelect({ label, id, value, onChange }: { label: string; id: string; value: string; onChange: (e: { target: { value: string } }) => void }) {
+function UnitSelect({
+  label,
+  id,
+  value,
+  onChange,
+  className = '',
+}: {
+  label: string;
+  id: string;
+  value: string;
+  onChange: (e: { target: { value: string } }) => void;
+  className?: string;
+}) {
   return (
     <div>
       <label className="field-label" htmlFor={id}>
         {label}
       </label>
-      <select id={id} className="field-input" value={value} onChange={onChange}>
+      <select id={id} className={`field-input ${className}`} value={value} onChange={onChange}>
         {TORQUE_UNIT_IDS.map((u) => (
           <option key={u} value={u}>
             {u}
