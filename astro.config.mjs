@@ -3,6 +3,20 @@ import { defineConfig, envField } from 'astro/config';
 import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwind from '@astrojs/tailwind';
+import { fileURLToPath } from 'node:url';
+
+// @react-three/fiber's `import * as THREE` keeps all of three.js in the bundle, so fiber alone is given a subset.
+const threeSubset = fileURLToPath(new URL('./src/components/trainer/scene/three-subset.ts', import.meta.url));
+/** @type {import('vite').Plugin} */
+const threeSubsetForFiber = {
+  name: 'three-subset-for-fiber',
+  apply: 'build',
+  enforce: 'pre',
+  resolveId(source, importer) {
+    if (source === 'three' && importer && /[\\/]node_modules[\\/]@react-three[\\/]fiber[\\/]/.test(importer)) return threeSubset;
+    return null;
+  },
+};
 
 export default defineConfig({
   output: 'server',
@@ -20,6 +34,7 @@ export default defineConfig({
     ],
   },
   server: { host: '127.0.0.1', port: 4321 },
+  vite: { plugins: [threeSubsetForFiber] },
   env: {
     schema: {
       DATABASE_URL: envField.string({ context: 'server', access: 'secret' }),

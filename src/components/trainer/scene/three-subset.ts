@@ -1,0 +1,38 @@
+// Fiber's 'three' in the build (astro.config.mjs): what fiber names plus the JSX elements, so the rest tree-shakes.
+export {
+  // Referenced by name inside @react-three/fiber.
+  ACESFilmicToneMapping,
+  BasicShadowMap,
+  Clock,
+  Color,
+  ColorManagement,
+  Layers,
+  LinearSRGBColorSpace,
+  NoToneMapping,
+  Object3D,
+  OrthographicCamera,
+  PCFShadowMap,
+  PCFSoftShadowMap,
+  PerspectiveCamera,
+  RGBAFormat,
+  Raycaster,
+  SRGBColorSpace,
+  Scene,
+  ShaderMaterial,
+  UnsignedByteType,
+  VSMShadowMap,
+  Vector2,
+  Vector3,
+  WebGLRenderer,
+  // Intrinsic elements in src/components/trainer (<boxGeometry>, <mesh>, ...); add one here when JSX gains one.
+  BoxGeometry,
+  DirectionalLight,
+  Group,
+  HemisphereLight,
+  InstancedMesh,
+  Mesh,
+  MeshBasicMaterial,
+  MeshStandardMaterial,
+  // Elements drei's <Html> renders in its transform/occlude modes (with Group, Mesh, ShaderMaterial above).
+  PlaneGeometry,
+} from 'three';
