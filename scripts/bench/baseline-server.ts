@@ -4,7 +4,7 @@ import { drizzle } from 'drizzle-orm/node-postgres';
 import * as schema from '../../src/db/schema';
 import { attemptRequestSchema } from '../../src/lib/schemas/attempts';
 import { scoreAttempt } from '../../src/lib/scoring';
-import { attemptRow } from '../../src/lib/server/attempt-row';
+import { attemptJson, attemptRow, createdAttempt } from '../../src/lib/server/attempt-row';
 import { findVersion } from '../../src/lib/server/procedure-store';
 
 // Baseline for POST /api/attempts without Astro, sessions or the clientId pre-check: read the JSON,
@@ -57,20 +57,7 @@ async function postAttempt(req: IncomingMessage, res: ServerResponse): Promise<v
     .onConflictDoNothing({ target: [attempts.userId, attempts.clientId] })
     .returning({ id: attempts.id, createdAt: attempts.createdAt });
   if (!row) return send(res, 409, { error: 'This clientId was already used' });
-  send(res, 201, {
-    id: row.id,
-    procedure: stored.slug,
-    version: stored.version,
-    stage: input.stage,
-    score: score.score,
-    maxScore: score.maxScore,
-    passed: score.passed,
-    results: score.results,
-    notes: score.notes ?? [],
-    answer: input.answer,
-    learnerId: userId,
-    createdAt: row.createdAt,
-  });
+  send(res, 201, attemptJson(createdAttempt(userId, input, stored, score, row)));
 }
 
 const server = createServer((req, res) => {

@@ -1,8 +1,26 @@
 import type { attempts } from '../../db/schema';
 import type { AttemptRequest } from '../schemas/attempts';
-import type { StageScore } from '../scoring/types';
+import type { StageScore, StepResult } from '../scoring/types';
 
-/** The row stored for a scored attempt; pure, so the benchmark's bare baseline writes the very same row. */
+// Pure pieces of an attempt, shared by the endpoint and the benchmark's bare baseline so both write
+// the very same row and answer the very same JSON.
+
+export interface AttemptView {
+  id: string;
+  learnerId: string;
+  procedure: string;
+  version: number;
+  stage: string;
+  score: number;
+  maxScore: number;
+  passed: boolean;
+  results: StepResult[];
+  notes: string[];
+  answer: unknown;
+  createdAt: Date;
+}
+
+/** The row stored for a scored attempt. */
 export function attemptRow(
   userId: string,
   input: AttemptRequest,
@@ -20,5 +38,46 @@ export function attemptRow(
     passed: score.passed,
     results: score.results,
     notes: score.notes ?? [],
+  };
+}
+
+/** The view of an attempt just inserted, built from what the insert returned (no read-back). */
+export function createdAttempt(
+  userId: string,
+  input: AttemptRequest,
+  version: { slug: string; version: number },
+  score: StageScore,
+  inserted: { id: string; createdAt: Date },
+): AttemptView {
+  return {
+    ...inserted,
+    learnerId: userId,
+    procedure: version.slug,
+    version: version.version,
+    stage: input.stage,
+    score: score.score,
+    maxScore: score.maxScore,
+    passed: score.passed,
+    results: score.results,
+    notes: score.notes ?? [],
+    answer: input.answer,
+  };
+}
+
+/** The JSON shape of an attempt (docs/api.md documents it). */
+export function attemptJson(a: AttemptView) {
+  return {
+    id: a.id,
+    procedure: a.procedure,
+    version: a.version,
+    stage: a.stage,
+    score: a.score,
+    maxScore: a.maxScore,
+    passed: a.passed,
+    results: a.results,
+    notes: a.notes,
+    answer: a.answer,
+    learnerId: a.learnerId,
+    createdAt: a.createdAt,
   };
 }

@@ -1,28 +1,12 @@
 import { and, eq } from 'drizzle-orm';
 import { db } from './db';
 import { attempts, classMembers, procedures, procedureVersions } from '../../db/schema';
-import { attemptRow } from './attempt-row';
+import { attemptRow, createdAttempt, type AttemptView } from './attempt-row';
 import { findVersion } from './procedure-store';
 import { scoreAttempt } from '../scoring';
 import type { Issue } from '../procedure/validate';
 import type { AttemptRequest } from '../schemas/attempts';
 import type { SessionUser } from '../roles';
-import type { StepResult } from '../scoring/types';
-
-export interface AttemptView {
-  id: string;
-  learnerId: string;
-  procedure: string;
-  version: number;
-  stage: string;
-  score: number;
-  maxScore: number;
-  passed: boolean;
-  results: StepResult[];
-  notes: string[];
-  answer: unknown;
-  createdAt: Date;
-}
 
 const viewColumns = {
   id: attempts.id,
@@ -71,25 +55,7 @@ export async function recordAttempt(user: SessionUser, input: AttemptRequest): P
     .values(row)
     .onConflictDoNothing({ target: [attempts.userId, attempts.clientId] })
     .returning({ id: attempts.id, createdAt: attempts.createdAt });
-  if (inserted) {
-    const { score } = scored;
-    return {
-      kind: 'created',
-      attempt: {
-        ...inserted,
-        learnerId: user.id,
-        procedure: stored.slug,
-        version: stored.version,
-        stage: input.stage,
-        score: score.score,
-        maxScore: score.maxScore,
-        passed: score.passed,
-        results: score.results,
-        notes: score.notes ?? [],
-        answer: input.answer,
-      },
-    };
-  }
+  if (inserted) return { kind: 'created', attempt: createdAttempt(user.id, input, stored, scored.score, inserted) };
   // This clientId was used before (a retry, or a race with one): answer with the stored row.
   const previous = await findByClientId(user.id, input.clientId);
   if (!previous) throw new Error('attempt conflict without a stored row');
@@ -128,22 +94,4 @@ async function teachesLearner(instructorId: string, learnerId: string): Promise<
     .where(and(eq(classMembers.userId, learnerId), eq(classMembers.role, 'learner')))
     .intersect(teacher);
   return Boolean(shared);
-}
-
-/** The JSON shape of an attempt (README documents it). */
-export function attemptJson(a: AttemptView) {
-  return {
-    id: a.id,
-    procedure: a.procedure,
-    version: a.version,
-    stage: a.stage,
-    score: a.score,
-    maxScore: a.maxScore,
-    passed: a.passed,
-    results: a.results,
-    notes: a.notes,
-    answer: a.answer,
-    learnerId: a.learnerId,
-    createdAt: a.createdAt,
-  };
 }

@@ -1,6 +1,7 @@
 import type { APIRoute } from 'astro';
 import { z } from 'zod';
-import { attemptForViewer, attemptJson } from '../../../lib/server/attempts';
+import { attemptJson } from '../../../lib/server/attempt-row';
+import { attemptForViewer } from '../../../lib/server/attempts';
 import { requireRole } from '../../../lib/server/guard';
 import { jsonError } from '../../../lib/server/http';
 

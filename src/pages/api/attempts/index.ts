@@ -1,6 +1,7 @@
 import type { APIRoute } from 'astro';
 import { attemptRequestSchema } from '../../../lib/schemas/attempts';
-import { attemptJson, recordAttempt } from '../../../lib/server/attempts';
+import { attemptJson } from '../../../lib/server/attempt-row';
+import { recordAttempt } from '../../../lib/server/attempts';
 import { requireRole } from '../../../lib/server/guard';
 import { jsonError, readJson, validationError } from '../../../lib/server/http';
 
