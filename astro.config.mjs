@@ -42,6 +42,22 @@ export default defineConfig({
       TRUST_PROXY: envField.boolean({ context: 'server', access: 'secret', default: false }),
       // Secure cookies need HTTPS; a plain-HTTP deployment other than localhost may turn them off.
       COOKIE_SECURE: envField.boolean({ context: 'server', access: 'secret', optional: true }),
+      // Outgoing mail: the school's SMTP relay (locally, the mail catcher that setup starts).
+      SMTP_HOST: envField.string({ context: 'server', access: 'secret', default: '127.0.0.1' }),
+      SMTP_PORT: envField.number({ context: 'server', access: 'secret', default: 2525 }),
+      SMTP_USER: envField.string({ context: 'server', access: 'secret', optional: true }),
+      SMTP_PASSWORD: envField.string({ context: 'server', access: 'secret', optional: true }),
+      MAIL_FROM: envField.string({ context: 'server', access: 'secret', default: 'Benchwright <no-reply@benchwright.example>' }),
+      // Only where mail goes to the local catcher: admins may read what was sent (the demo shows it).
+      MAIL_CATCHER_URL: envField.string({ context: 'server', access: 'secret', optional: true }),
+      // Links in e-mail; a request's own origin is used when the app is answering one.
+      APP_URL: envField.string({ context: 'server', access: 'secret', optional: true }),
+      // Uploads: any S3-compatible store (locally, the S3 fake that setup starts).
+      S3_ENDPOINT: envField.string({ context: 'server', access: 'secret', optional: true }),
+      S3_REGION: envField.string({ context: 'server', access: 'secret', default: 'us-east-1' }),
+      S3_BUCKET: envField.string({ context: 'server', access: 'secret', default: 'benchwright' }),
+      S3_ACCESS_KEY_ID: envField.string({ context: 'server', access: 'secret', optional: true }),
+      S3_SECRET_ACCESS_KEY: envField.string({ context: 'server', access: 'secret', optional: true }),
     },
   },
 });

@@ -1,6 +1,7 @@
 import { defineConfig, devices } from '@playwright/test';
 
-const PORT = 4331;
+// Another checkout running its tests at the same time picks its own port with BW_E2E_PORT.
+const PORT = Number(process.env.BW_E2E_PORT ?? 4331);
 
 // Debian's Chromium, never a downloaded browser; as root it needs --no-sandbox.
 export default defineConfig({
@@ -33,6 +34,7 @@ export default defineConfig({
     url: `http://localhost:${PORT}/api/health`,
     reuseExistingServer: false,
     timeout: 60_000,
-    env: { HOST: '127.0.0.1', PORT: String(PORT), DATABASE_URL: process.env.DATABASE_URL ?? '' },
+    // The database, SMTP and S3 settings come from run-tests.mjs's environment.
+    env: { ...(process.env as Record<string, string>), HOST: '127.0.0.1', PORT: String(PORT) },
   },
 });

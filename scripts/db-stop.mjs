@@ -1,5 +1,9 @@
-// Stops the local PostgreSQL that `npm start` / `npm test` started.
+// Stops the local PostgreSQL, mail catcher and S3 fake that `npm start` / `npm test` started.
 import { runMain } from './lib/log.mjs';
 import { ensurePostgresInstalled, stopCluster } from './lib/postgres.mjs';
+import { stopServices } from './lib/services.mjs';
 
-runMain(async () => stopCluster(ensurePostgresInstalled()));
+runMain(async () => {
+  stopServices();
+  stopCluster(ensurePostgresInstalled());
+});

@@ -3,12 +3,12 @@
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { databaseUrl } from './lib/config.mjs';
+import { appEnv } from './lib/config.mjs';
 import { bin, ROOT } from './lib/paths.mjs';
 
 const OUT = join(ROOT, 'test-results');
 mkdirSync(OUT, { recursive: true });
-const env = { ...process.env, DATABASE_URL: databaseUrl('test'), ASTRO_TELEMETRY_DISABLED: '1' };
+const env = { ...process.env, ...appEnv('test'), ASTRO_TELEMETRY_DISABLED: '1' };
 
 function runner(name, cmd, args) {
   console.log(`\n\x1b[1m▸ ${name}\x1b[0m`);

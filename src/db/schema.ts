@@ -1,4 +1,5 @@
-import { pgTable, pgEnum, text, timestamp, integer, uuid, primaryKey, index, jsonb, boolean, unique } from 'drizzle-orm/pg-core';
+import { pgTable, pgEnum, text, timestamp, integer, uuid, primaryKey, index, jsonb, boolean, unique, date, real } from 'drizzle-orm/pg-core';
+import type { AnyPgColumn } from 'drizzle-orm/pg-core';
 import { STAGES, type Procedure } from '../lib/procedure/schema';
 import type { StepResult } from '../lib/scoring/types';
 import type { z } from 'zod';
@@ -108,6 +109,8 @@ export const attempts = pgTable(
       .notNull()
       .references(() => procedureVersions.id, { onDelete: 'restrict' }),
     stage: stageEnum('stage').notNull(),
+    /** The drill this attempt counts toward, when the learner started it from one. */
+    drillId: uuid('drill_id').references((): AnyPgColumn => drills.id, { onDelete: 'restrict' }),
     answer: jsonb('answer').notNull(),
     score: integer('score').notNull(),
     maxScore: integer('max_score').notNull(),
@@ -116,7 +119,11 @@ export const attempts = pgTable(
     notes: jsonb('notes').$type<string[]>().notNull().default([]),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [unique('attempts_user_client_uq').on(t.userId, t.clientId), index('attempts_user_created_idx').on(t.userId, t.createdAt)],
+  (t) => [
+    unique('attempts_user_client_uq').on(t.userId, t.clientId),
+    index('attempts_user_created_idx').on(t.userId, t.createdAt),
+    index('attempts_drill_user_idx').on(t.drillId, t.userId),
+  ],
 );
 
 /** A learner's work in progress on one procedure version; the copy made last (savedAt) wins. */
@@ -137,5 +144,206 @@ export const attemptDrafts = pgTable(
   (t) => [primaryKey({ columns: [t.userId, t.procedureVersionId] })],
 );
 
+/**
+ * Practice an instructor assigns to a class: one pinned procedure version, some of its stages,
+ * a due date and a pass mark. Closing a drill keeps every attempt made on it.
+ */
+export const drills = pgTable(
+  'drills',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    classId: uuid('class_id')
+      .notNull()
+      .references(() => classes.id, { onDelete: 'cascade' }),
+    procedureVersionId: uuid('procedure_version_id')
+      .notNull()
+      .references(() => procedureVersions.id, { onDelete: 'restrict' }),
+    stages: stageEnum('stages').array().notNull(),
+    dueAt: timestamp('due_at', { withTimezone: true, mode: 'date' }).notNull(),
+    passMarkPct: integer('pass_mark_pct').notNull(),
+    /** Null: as many attempts as the learner likes. */
+    attemptLimit: integer('attempt_limit'),
+    /** When true, feedback shows the right answer only once the due date has passed. */
+    answersAfterDue: boolean('answers_after_due').notNull().default(false),
+    closedAt: timestamp('closed_at', { withTimezone: true, mode: 'date' }),
+    createdBy: text('created_by')
+      .notNull()
+      .references(() => users.id),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('drills_class_idx').on(t.classId)],
+);
+
+/** One reminder per learner and drill: the reminder job skips pairs already here. */
+export const drillReminders = pgTable(
+  'drill_reminders',
+  {
+    drillId: uuid('drill_id')
+      .notNull()
+      .references(() => drills.id, { onDelete: 'cascade' }),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    sentAt: timestamp('sent_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.drillId, t.userId] })],
+);
+
+/** Class invitations sent by e-mail, kept so the instructor sees who was asked and when. */
+export const classInvitations = pgTable(
+  'class_invitations',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    classId: uuid('class_id')
+      .notNull()
+      .references(() => classes.id, { onDelete: 'cascade' }),
+    email: text('email').notNull(),
+    name: text('name'),
+    invitedBy: text('invited_by')
+      .notNull()
+      .references(() => users.id),
+    sentAt: timestamp('sent_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('class_invitations_class_idx').on(t.classId)],
+);
+
+/** Password reset: only a SHA-256 of the token is stored; a token works once, before it expires. */
+export const passwordResetTokens = pgTable(
+  'password_reset_tokens',
+  {
+    tokenHash: text('token_hash').primaryKey(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true, mode: 'date' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('password_reset_tokens_user_idx').on(t.userId)],
+);
+
+export const uploadPurposeEnum = pgEnum('upload_purpose', ['bench-photo', 'procedure-reference']);
+
+/** A file in the object store under a random key; the bytes were checked to be what the type says. */
+export const uploads = pgTable(
+  'uploads',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    ownerId: text('owner_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    purpose: uploadPurposeEnum('purpose').notNull(),
+    /** The procedure a bench photo shows, or a reference file belongs to. */
+    procedureId: uuid('procedure_id').references(() => procedures.id, { onDelete: 'cascade' }),
+    storageKey: text('storage_key').notNull().unique(),
+    contentType: text('content_type').notNull(),
+    sizeBytes: integer('size_bytes').notNull(),
+    originalName: text('original_name').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('uploads_owner_procedure_idx').on(t.ownerId, t.procedureId)],
+);
+
+export const signOffOutcomeEnum = pgEnum('sign_off_outcome', ['pass', 'redo']);
+
+/** The instructor's record of real bench work on a procedure: a learner may need several (redo, then pass). */
+export const signOffs = pgTable(
+  'sign_offs',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    classId: uuid('class_id')
+      .notNull()
+      .references(() => classes.id, { onDelete: 'cascade' }),
+    learnerId: text('learner_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    procedureId: uuid('procedure_id')
+      .notNull()
+      .references(() => procedures.id, { onDelete: 'restrict' }),
+    instructorId: text('instructor_id')
+      .notNull()
+      .references(() => users.id),
+    benchDate: date('bench_date', { mode: 'string' }).notNull(),
+    outcome: signOffOutcomeEnum('outcome').notNull(),
+    notes: text('notes').notNull().default(''),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('sign_offs_class_learner_idx').on(t.classId, t.learnerId)],
+);
+
+/** Photos the learner uploaded that the instructor attached to a sign-off. */
+export const signOffPhotos = pgTable(
+  'sign_off_photos',
+  {
+    signOffId: uuid('sign_off_id')
+      .notNull()
+      .references(() => signOffs.id, { onDelete: 'cascade' }),
+    uploadId: uuid('upload_id')
+      .notNull()
+      .references(() => uploads.id, { onDelete: 'cascade' }),
+  },
+  (t) => [primaryKey({ columns: [t.signOffId, t.uploadId] })],
+);
+
+export const missKindEnum = pgEnum('miss_kind', ['out-of-order', 'wrong-pin', 'broken-pattern', 'wrong-wrench-setting', 'failed-final-check']);
+
+/**
+ * A step a learner missed, to be met again on a spaced schedule. One row per learner, procedure
+ * version, stage and result key; a new miss refreshes it. The scheduler's card state is kept whole.
+ */
+export const reworkItems = pgTable(
+  'rework_items',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    procedureVersionId: uuid('procedure_version_id')
+      .notNull()
+      .references(() => procedureVersions.id, { onDelete: 'restrict' }),
+    stage: stageEnum('stage').notNull(),
+    /** The scorer's result key the miss was reported under (a step, hole, pass or check). */
+    itemKey: text('item_key').notNull(),
+    missKind: missKindEnum('miss_kind').notNull(),
+    due: timestamp('due', { withTimezone: true, mode: 'date' }).notNull(),
+    /** The spaced-review card (stability, difficulty, reps, lapses, state, last review). */
+    card: jsonb('card').$type<Record<string, unknown>>().notNull(),
+    missCount: integer('miss_count').notNull().default(1),
+    lastMissedAt: timestamp('last_missed_at', { withTimezone: true, mode: 'date' }).notNull(),
+    sourceAttemptId: uuid('source_attempt_id').references(() => attempts.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    unique('rework_items_user_item_uq').on(t.userId, t.procedureVersionId, t.stage, t.itemKey),
+    index('rework_items_user_due_idx').on(t.userId, t.due),
+  ],
+);
+
+/** One answer to a rework question; clientId makes a retried submit idempotent, as with attempts. */
+export const reworkAnswers = pgTable(
+  'rework_answers',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    itemId: uuid('item_id')
+      .notNull()
+      .references(() => reworkItems.id, { onDelete: 'cascade' }),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    clientId: uuid('client_id').notNull(),
+    answer: jsonb('answer').notNull(),
+    correct: boolean('correct').notNull(),
+    /** The review rating given to the scheduler (1 again … 4 easy). */
+    rating: integer('rating').notNull(),
+    results: jsonb('results').$type<StepResult[]>().notNull(),
+    dueBefore: timestamp('due_before', { withTimezone: true, mode: 'date' }).notNull(),
+    dueAfter: timestamp('due_after', { withTimezone: true, mode: 'date' }).notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique('rework_answers_user_client_uq').on(t.userId, t.clientId), index('rework_answers_item_idx').on(t.itemId)],
+);
+
 export type UserRow = typeof users.$inferSelect;
 export type ClassRow = typeof classes.$inferSelect;
+export type DrillRow = typeof drills.$inferSelect;

@@ -2,7 +2,7 @@ import { spawn } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 // A second app process pointed at a port where no PostgreSQL listens.
-const PORT = 4338;
+const PORT = Number(process.env.BW_TEST_PORT ?? 4330) + 8;
 let child: ReturnType<typeof spawn>;
 
 beforeAll(async () => {

@@ -2,7 +2,8 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync } from 'node:fs';
 
-export const INTEGRATION_PORT = 4330;
+// Another checkout running its tests at the same time picks its own port with BW_TEST_PORT.
+export const INTEGRATION_PORT = Number(process.env.BW_TEST_PORT ?? 4330);
 export const BASE_URL = `http://127.0.0.1:${INTEGRATION_PORT}`;
 
 let server: ChildProcess | undefined;
