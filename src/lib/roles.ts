@@ -28,16 +28,19 @@ export function navLinksFor(role: Role): { href: string; label: string }[] {
       return [
         { href: '/learn', label: 'My bench' },
         { href: '/train', label: 'Practise' },
+        { href: '/tools/wrench', label: 'Wrench' },
       ];
     case 'instructor':
       return [
         { href: '/teach', label: 'My classes' },
         { href: '/train', label: 'Procedures' },
+        { href: '/tools/wrench', label: 'Wrench' },
       ];
     case 'admin':
       return [
         { href: '/admin/users', label: 'People' },
         { href: '/teach', label: 'Classes' },
+        { href: '/tools/wrench', label: 'Wrench' },
       ];
   }
 }
