@@ -38,6 +38,7 @@ export function navLinksFor(role: Role): { href: string; label: string }[] {
       return [
         { href: '/admin/users', label: 'People' },
         { href: '/teach', label: 'Classes' },
+        { href: '/admin/mail', label: 'Sent mail' },
       ];
   }
 }
