@@ -40,6 +40,7 @@ export function navLinksFor(role: Role): { href: string; label: string }[] {
       return [
         { href: '/admin/users', label: 'People' },
         { href: '/teach', label: 'Classes' },
+        { href: '/admin/mail', label: 'Sent mail' },
         { href: '/tools/wrench', label: 'Wrench' },
       ];
   }

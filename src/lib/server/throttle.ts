@@ -51,3 +51,24 @@ export async function recordSignInFailure(email: string, address: string): Promi
 export async function clearAccountFailures(email: string): Promise<void> {
   await db.delete(signInThrottle).where(eq(signInThrottle.key, accountKey(email)));
 }
+
+/**
+ * Counts one use of `key` in a fixed window and answers the count, this use included; a window that has
+ * run out starts again at 1. For limits other than sign-in failures (password reset requests), sharing
+ * the same table so several app processes keep one count.
+ */
+export async function countUse(key: string, windowMinutes: number): Promise<number> {
+  const expired = sql`${signInThrottle.windowStartedAt} + make_interval(mins => ${windowMinutes}) <= now()`;
+  const [row] = await db
+    .insert(signInThrottle)
+    .values({ key, failures: 1 })
+    .onConflictDoUpdate({
+      target: signInThrottle.key,
+      set: {
+        failures: sql`case when ${expired} then 1 else ${signInThrottle.failures} + 1 end`,
+        windowStartedAt: sql`case when ${expired} then now() else ${signInThrottle.windowStartedAt} end`,
+      },
+    })
+    .returning({ count: signInThrottle.failures });
+  return row!.count;
+}
