@@ -8,6 +8,7 @@ import { hashPassword } from '../src/lib/server/password';
 import { publishProcedure } from '../src/lib/server/procedure-store';
 import { DEMO_PROCEDURES } from '../models/procedures';
 import { DEMO_CLASS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_SCHOOL } from './demo-people';
+import { DEMO_SIGN_OFF_LEARNER, seedSignOffs } from './seed-sign-offs';
 
 if (process.env.NODE_ENV === 'production') {
   console.error('Refusing to seed demo accounts with NODE_ENV=production.');
@@ -63,6 +64,13 @@ async function main() {
     const { version, created } = published;
     console.log(`  procedure ${version.slug} v${version.version}${created ? ' published' : ' unchanged'}`);
   }
+
+  const signedOff = await seedSignOffs(db, {
+    classId: cls!.id,
+    learnerId: idOf(DEMO_SIGN_OFF_LEARNER),
+    instructorId: idOf(DEMO_CLASS.instructors[0]!),
+  });
+  console.log(`  ${signedOff}`);
 }
 
 main()

@@ -83,7 +83,8 @@ export async function attemptForViewer(viewer: SessionUser, attemptId: string): 
   return (await teachesLearner(viewer.id, row.learnerId)) ? row : null;
 }
 
-async function teachesLearner(instructorId: string, learnerId: string): Promise<boolean> {
+/** True when the instructor teaches a class the learner is a learner in (shared by attempts and uploads). */
+export async function teachesLearner(instructorId: string, learnerId: string): Promise<boolean> {
   const teacher = db
     .select({ classId: classMembers.classId })
     .from(classMembers)

@@ -7,35 +7,41 @@ export class Client {
   constructor(readonly address = `10.${rnd()}.${rnd()}.${rnd()}`) {}
 
   async request(method: string, path: string, body?: unknown, headers: Record<string, string> = {}) {
+    // Forms and raw bytes go as they are (fetch sets a multipart type with its boundary); anything else as JSON.
+    const raw = body instanceof FormData || body instanceof Uint8Array;
     const res = await fetch(BASE_URL + path, {
       method,
       redirect: 'manual',
       headers: {
         'x-forwarded-for': this.address,
-        ...(body !== undefined ? { 'content-type': 'application/json' } : {}),
+        ...(body !== undefined && !raw ? { 'content-type': 'application/json' } : {}),
         ...(this.cookie ? { cookie: this.cookie } : {}),
         ...headers,
       },
-      body: body === undefined ? undefined : typeof body === 'string' ? body : JSON.stringify(body),
+      body: body === undefined ? undefined : raw ? (body as BodyInit) : typeof body === 'string' ? body : JSON.stringify(body),
     });
     for (const line of res.headers.getSetCookie()) {
       const [pair] = line.split(';');
       const [name, value] = pair!.split('=');
       if (name === 'bw_session') this.cookie = value ? `${name}=${value}` : null;
     }
-    const text = await res.text();
+    const bytes = new Uint8Array(await res.arrayBuffer());
+    const text = new TextDecoder().decode(bytes);
     let json: any = null;
     try {
       json = text ? JSON.parse(text) : null;
     } catch {
       json = text;
     }
-    return { status: res.status, body: json, headers: res.headers };
+    return { status: res.status, body: json, bytes, headers: res.headers };
   }
 
   get = (path: string) => this.request('GET', path);
   post = (path: string, body?: unknown) => this.request('POST', path, body ?? {});
   patch = (path: string, body?: unknown) => this.request('PATCH', path, body ?? {});
+  // A browser sends Origin with these; Astro's origin check refuses bodiless and form requests without it.
+  delete = (path: string) => this.request('DELETE', path, undefined, { origin: BASE_URL });
+  postForm = (path: string, form: FormData) => this.request('POST', path, form, { origin: BASE_URL });
 
   get hasSession(): boolean {
     return this.cookie !== null;

@@ -1,0 +1,51 @@
+import type { APIRoute } from 'astro';
+import { z } from 'zod';
+import { requireRole } from '../../../lib/server/guard';
+import { jsonError } from '../../../lib/server/http';
+import { deleteOwnUpload, readUpload, uploadForViewer } from '../../../lib/server/uploads';
+
+const uuid = z.string().uuid();
+
+/**
+ * The file's bytes, for its owner, instructors of a class the owner is a learner in, and admins;
+ * anyone else gets 404. Served as the type found in its bytes, never sniffed again by the browser.
+ */
+export const GET: APIRoute = async ({ locals, params }) => {
+  const gate = requireRole(locals);
+  if (!gate.ok) return gate.response;
+  const id = uuid.safeParse(params.id);
+  if (!id.success) return jsonError(404, 'No such file');
+  const upload = await uploadForViewer(gate.user, id.data);
+  if (!upload) return jsonError(404, 'No such file');
+  const object = await readUpload(upload.storageKey);
+  if (!object) return jsonError(404, 'The file is no longer stored');
+  // The S3 client hands back a plain ArrayBuffer-backed array; its type only allows for shared memory.
+  return new Response(object.body as Uint8Array<ArrayBuffer>, {
+    status: 200,
+    headers: {
+      'content-type': upload.contentType,
+      'content-length': String(object.body.byteLength),
+      'content-disposition': 'inline',
+      'x-content-type-options': 'nosniff',
+      // Opened on its own, the file runs nothing, whatever it might contain.
+      'content-security-policy': 'sandbox',
+      // Per person and never changed under this id: the browser may keep it a while, shared caches never.
+      'cache-control': 'private, max-age=3600',
+    },
+  });
+};
+
+/** The owner deletes a photo no sign-off uses yet: 204; 409 once attached; 403 for others who may see it. */
+export const DELETE: APIRoute = async ({ locals, params }) => {
+  const gate = requireRole(locals);
+  if (!gate.ok) return gate.response;
+  const id = uuid.safeParse(params.id);
+  if (!id.success) return jsonError(404, 'No such file');
+  const upload = await uploadForViewer(gate.user, id.data);
+  if (!upload) return jsonError(404, 'No such file');
+  if (upload.ownerId !== gate.user.id) return jsonError(403, 'Only the learner who uploaded a photo can delete it');
+  const result = await deleteOwnUpload(gate.user.id, id.data);
+  if (result === 'not-found') return jsonError(404, 'No such file');
+  if (result === 'attached') return jsonError(409, 'This photo is part of a sign-off and stays with it');
+  return new Response(null, { status: 204 });
+};
