@@ -2,13 +2,14 @@
 import { randomUUID } from 'node:crypto';
 import pg from 'pg';
 import { drizzle } from 'drizzle-orm/node-postgres';
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import * as schema from '../src/db/schema';
 import { hashPassword } from '../src/lib/server/password';
-import { publishProcedure } from '../src/lib/server/procedure-store';
+import { findVersion, publishProcedure } from '../src/lib/server/procedure-store';
 import { DEMO_PROCEDURES } from '../models/procedures';
 import { DEMO_CLASS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_SCHOOL } from './demo-people';
 import { DEMO_SIGN_OFF_LEARNER, seedSignOffs } from './seed-sign-offs';
+import { DEMO_DRILLS, demoDueAt } from './demo-drills';
 
 if (process.env.NODE_ENV === 'production') {
   console.error('Refusing to seed demo accounts with NODE_ENV=production.');
@@ -21,7 +22,7 @@ if (!process.env.DATABASE_URL) {
 
 const pool = new pg.Pool({ connectionString: process.env.DATABASE_URL });
 const db = drizzle(pool, { schema });
-const { schools, users, classes, classMembers } = schema;
+const { schools, users, classes, classMembers, drills, procedures, procedureVersions } = schema;
 
 async function main() {
   await db.insert(schools).values({ name: DEMO_SCHOOL }).onConflictDoNothing();
@@ -71,6 +72,35 @@ async function main() {
     instructorId: idOf(DEMO_CLASS.instructors[0]!),
   });
   console.log(`  ${signedOff}`);
+  await seedDrills(cls!.id, idOf(DEMO_CLASS.instructors[0]!));
+}
+
+/** Each demo drill once per class: a procedure that already has a drill there (any version) is left alone. */
+async function seedDrills(classId: string, instructorId: string) {
+  const now = new Date();
+  for (const demo of DEMO_DRILLS) {
+    const existing = await db
+      .select({ id: drills.id })
+      .from(drills)
+      .innerJoin(procedureVersions, eq(procedureVersions.id, drills.procedureVersionId))
+      .innerJoin(procedures, eq(procedures.id, procedureVersions.procedureId))
+      .where(and(eq(drills.classId, classId), eq(procedures.slug, demo.procedure)));
+    if (existing.length > 0) continue;
+    const version = await findVersion(db, demo.procedure);
+    if (!version) throw new Error(`demo drill: no procedure ${demo.procedure}`);
+    const dueAt = demoDueAt(demo.dueInDays, now);
+    await db.insert(drills).values({
+      classId,
+      procedureVersionId: version.id,
+      stages: demo.stages,
+      dueAt,
+      passMarkPct: demo.passMarkPct,
+      attemptLimit: demo.attemptLimit,
+      answersAfterDue: demo.answersAfterDue,
+      createdBy: instructorId,
+    });
+    console.log(`  drill ${demo.procedure} for "${DEMO_CLASS.name}", due ${dueAt.toISOString()}`);
+  }
 }
 
 main()

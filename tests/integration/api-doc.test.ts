@@ -14,10 +14,12 @@ interface Example {
   status: number;
   match: 'exact' | 'keys' | 'items';
   response: unknown;
+  /** `save=name` on the response block: later examples may use `{name.field}` in their path or body. */
+  save: string | null;
 }
 
 // Values that differ on every run; the document shows them as "…".
-const VOLATILE = new Set(['id', 'learnerId', 'createdAt', 'joinCode', 'classId']);
+const VOLATILE = new Set(['id', 'learnerId', 'createdAt', 'joinCode', 'classId', 'drillId', 'updatedAt', 'closedAt', 'lastActivity']);
 
 function parseExamples(markdown: string): Example[] {
   const blocks = [...markdown.matchAll(/```(\w+)([^\n]*)\n([\s\S]*?)```/g)].map((m) => ({ lang: m[1], info: m[2]!.trim(), text: m[3]! }));
@@ -40,6 +42,7 @@ function parseExamples(markdown: string): Example[] {
       status: Number(/status=(\d+)/.exec(reply.info)?.[1]),
       match: (/match=(keys|items)/.exec(reply.info)?.[1] as Example['match'] | undefined) ?? 'exact',
       response: JSON.parse(reply.text),
+      save: /save=(\w+)/.exec(reply.info)?.[1] ?? null,
     });
   });
   return examples;
@@ -50,6 +53,27 @@ function withoutVolatile(value: unknown): unknown {
   if (value && typeof value === 'object') {
     return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, VOLATILE.has(k) ? '…' : withoutVolatile(v)]));
   }
+  return value;
+}
+
+// Answers kept by `save=name`, for the ids of things an earlier example made (a class, a drill).
+const saved = new Map<string, unknown>();
+
+/** Replaces `{name.path.to.field}` in a string with the saved answer's field. */
+function fillIn(text: string): string {
+  return text.replace(/\{(\w+)((?:\.\w+)+)\}/g, (whole, name: string, path: string) => {
+    let value: unknown = saved.get(name);
+    if (value === undefined) throw new Error(`${whole}: no earlier example saved "${name}"`);
+    for (const key of path.slice(1).split('.')) value = (value as Record<string, unknown> | null)?.[key];
+    if (typeof value !== 'string' && typeof value !== 'number') throw new Error(`${whole}: the saved answer has no such field`);
+    return String(value);
+  });
+}
+
+function fillInBody(value: unknown): unknown {
+  if (typeof value === 'string') return fillIn(value);
+  if (Array.isArray(value)) return value.map(fillInBody);
+  if (value && typeof value === 'object') return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, fillInBody(v)]));
   return value;
 }
 
@@ -67,10 +91,11 @@ describe('docs/api.md examples', () => {
         expect((await client.post('/api/auth/sign-in', { email: example.as, password: DEMO_PASSWORD })).status).toBe(200);
       }
       // A documented clientId would be a replay on the second run; each run sends a fresh one.
-      const body =
-        example.body && typeof example.body === 'object' && 'clientId' in example.body ? { ...example.body, clientId: randomUUID() } : example.body;
-      const res = await client.request(example.method, example.path, body);
+      const filled = fillInBody(example.body);
+      const body = filled && typeof filled === 'object' && 'clientId' in filled ? { ...filled, clientId: randomUUID() } : filled;
+      const res = await client.request(example.method, fillIn(example.path), body);
       expect(res.status).toBe(example.status);
+      if (example.save) saved.set(example.save, res.body);
       if (example.match === 'keys') {
         expect(Object.keys(res.body).sort()).toEqual(Object.keys(example.response as object).sort());
       } else if (example.match === 'items') {

@@ -1,6 +1,7 @@
 import type { Stage } from '../../lib/procedure/schema';
 import { ApiError, submitAttempt } from './api';
 import { useTrainer, useTrainerStore } from './context';
+import { useDrill } from './drill';
 import { answerFor } from './store';
 
 // "Check this stage": sends the stage's answer to be scored. A check that got no answer keeps its
@@ -27,12 +28,16 @@ export function CheckStage({ stage }: { stage: Stage }) {
   const submitting = useTrainer((s) => s.submitting);
   const error = useTrainer((s) => s.submitError);
   const scored = useTrainer((s) => Boolean(s.results[stage]));
+  const { drill, setStanding } = useDrill();
+  const standing = drill?.stages.find((s) => s.stage === stage);
+  const noneLeft = standing?.attemptsLeft === 0;
 
   const check = async () => {
     const { procedure, drafts } = store.getState();
     const answer = answerFor(stage, drafts);
     const answerText = JSON.stringify(answer);
-    const slot = `${procedure.slug}:${procedure.version}:${stage}`;
+    // A drill's checks are other attempts than free practice on the same version.
+    const slot = `${procedure.slug}:${procedure.version}:${stage}:${drill?.id ?? ''}`;
     // Changed work is a new attempt; the same work after a failure is a retry of the old one.
     let pending = pendingChecks.get(slot);
     if (!pending || pending.answer !== answerText) {
@@ -41,8 +46,16 @@ export function CheckStage({ stage }: { stage: Stage }) {
     }
     store.getState().setSubmitting(stage);
     try {
-      const result = await submitAttempt({ procedure: procedure.slug, version: procedure.version, stage, answer, clientId: pending.clientId });
+      const { drill: standingAfter, ...result } = await submitAttempt({
+        procedure: procedure.slug,
+        version: procedure.version,
+        stage,
+        answer,
+        clientId: pending.clientId,
+        ...(drill ? { drillId: drill.id } : {}),
+      });
       pendingChecks.delete(slot);
+      if (standingAfter) setStanding(standingAfter.stages);
       store.getState().setSubmitting(null);
       store.getState().setResult(stage, result);
     } catch (err) {
@@ -55,14 +68,41 @@ export function CheckStage({ stage }: { stage: Stage }) {
   const busy = submitting !== null;
   return (
     <div className="mt-5 border-t border-steel-200 pt-4">
-      <button type="button" className="btn-primary w-full sm:w-auto" disabled={busy} onClick={() => void check()}>
+      <button type="button" className="btn-primary w-full sm:w-auto" disabled={busy || noneLeft} onClick={() => void check()}>
         {submitting === stage ? 'Checking…' : scored ? 'Check this stage again' : 'Check this stage'}
       </button>
+      {drill && standing && (
+        <div className="mt-2 space-y-1 text-sm text-steel-700">
+          <p data-testid="stage-best">
+            {standing.bestPct === null
+              ? `Pass mark for this stage: ${drill.passMarkPct} %.`
+              : `Your best on this stage: ${Math.round(standing.bestPct)} % (pass mark ${drill.passMarkPct} %).`}
+          </p>
+          <AttemptsLeft left={standing.attemptsLeft} limit={drill.attemptLimit} />
+        </div>
+      )}
       {error && (
         <p className="field-error" role="alert">
           <span aria-hidden="true">⚠</span> {error}
         </p>
       )}
     </div>
+  );
+}
+
+/** On a drill: how many checks this stage has left (the limit counts per stage). */
+function AttemptsLeft({ left, limit }: { left: number | null; limit: number | null }) {
+  if (left === null || limit === null) return <p>This drill has no attempt limit.</p>;
+  if (left === 0) {
+    return (
+      <p className="font-semibold text-signal-700" data-testid="attempts-left">
+        <span aria-hidden="true">⚠</span> No attempts left on this stage of the drill. Your attempts are kept for your instructor.
+      </p>
+    );
+  }
+  return (
+    <p data-testid="attempts-left">
+      {left} of {limit} attempt{limit === 1 ? '' : 's'} left on this stage of the drill.
+    </p>
   );
 }

@@ -68,6 +68,13 @@ export function Feedback({ stage }: { stage: Stage }) {
         })}
       </ul>
 
+      {result.answersHidden && (
+        <p className="mt-3 text-sm text-steel-700">
+          This drill shows the right answers after its due date; until then each line says only whether it is
+          right.
+        </p>
+      )}
+
       {result.notes.length > 0 && (
         <div className="mt-3">
           <h4 className="text-sm font-semibold text-steel-700">Notes</h4>

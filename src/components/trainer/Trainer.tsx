@@ -1,8 +1,9 @@
-import { Component, Suspense, lazy, useEffect, useRef, useState, type ComponentType, type LazyExoticComponent, type ReactNode } from 'react';
+import { Component, Suspense, lazy, useEffect, useMemo, useRef, useState, type ComponentType, type LazyExoticComponent, type ReactNode } from 'react';
 import type { PublicProcedure } from '../../lib/procedure/public-view';
 import type { Stage } from '../../lib/procedure/schema';
 import { CheckStage } from './CheckStage';
 import { TrainerContext, useTrainer } from './context';
+import { DrillContext, type DrillHandle, type TrainerDrill } from './drill';
 import { startDraftSync, type DraftStorage } from './draft-sync';
 import { Feedback } from './Feedback';
 import { STAGE_LABELS } from './labels';
@@ -42,8 +43,13 @@ function browserStorage(): DraftStorage | null {
   }
 }
 
-export default function Trainer({ procedure }: { procedure: PublicProcedure }) {
+export default function Trainer({ procedure, drill }: { procedure: PublicProcedure; drill?: TrainerDrill }) {
   const [store] = useState(() => createTrainerStore(procedure));
+  const [drillState, setDrillState] = useState<TrainerDrill | null>(drill ?? null);
+  const drillHandle = useMemo<DrillHandle>(
+    () => ({ drill: drillState, setStanding: (stages) => setDrillState((d) => (d ? { ...d, stages } : d)) }),
+    [drillState],
+  );
 
   useEffect(() => {
     const sync = startDraftSync({ store, storage: browserStorage() });
@@ -65,7 +71,9 @@ export default function Trainer({ procedure }: { procedure: PublicProcedure }) {
 
   return (
     <TrainerContext value={store}>
-      <TrainerLayout />
+      <DrillContext value={drillHandle}>
+        <TrainerLayout />
+      </DrillContext>
     </TrainerContext>
   );
 }

@@ -1,4 +1,5 @@
 import type { Stage } from '../../lib/procedure/schema';
+import type { StageStanding } from './drill';
 import type { AttemptResult, Drafts } from './store';
 
 // The trainer's calls to the server. `fetchImpl` is injectable so the draft saver can be tested without a browser.
@@ -34,6 +35,13 @@ export interface SubmitRequest {
   stage: Stage;
   answer: unknown;
   clientId: string;
+  /** Sent when the trainer was opened for a drill: the attempt counts toward it. */
+  drillId?: string;
+}
+
+/** The server's verdict, and on a drill the learner's standing on each of its stages afterwards. */
+export interface SubmitAnswer extends AttemptResult {
+  drill?: { stages: StageStanding[] };
 }
 
 /** POSTs JSON; a network failure becomes an ApiError with status 0 and the given words. */
@@ -51,7 +59,7 @@ async function postJson(path: string, body: unknown, offlineMessage: string, fet
 }
 
 /** POST /api/attempts; throws ApiError with a message fit to show. */
-export async function submitAttempt(request: SubmitRequest, fetchImpl: FetchLike = defaultFetch): Promise<AttemptResult> {
+export async function submitAttempt(request: SubmitRequest, fetchImpl: FetchLike = defaultFetch): Promise<SubmitAnswer> {
   const response = await postJson(
     '/api/attempts',
     request,
@@ -59,8 +67,17 @@ export async function submitAttempt(request: SubmitRequest, fetchImpl: FetchLike
     fetchImpl,
   );
   if (response.ok) {
-    const body = (await response.json()) as AttemptResult;
-    return { id: body.id, score: body.score, maxScore: body.maxScore, passed: body.passed, results: body.results, notes: body.notes ?? [] };
+    const body = (await response.json()) as SubmitAnswer;
+    return {
+      id: body.id,
+      score: body.score,
+      maxScore: body.maxScore,
+      passed: body.passed,
+      results: body.results,
+      notes: body.notes ?? [],
+      answersHidden: body.answersHidden === true,
+      ...(body.drill ? { drill: { stages: body.drill.stages } } : {}),
+    };
   }
   const text = await errorText(response);
   if (response.status === 401) throw new ApiError(401, 'You are signed out. Sign in again in another tab, then check again; your work is kept.');

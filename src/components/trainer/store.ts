@@ -51,6 +51,8 @@ export interface AttemptResult {
   passed: boolean;
   results: StepResult[];
   notes: string[];
+  /** On a drill that keeps its answers until the due date: the lines say right or not, no more. */
+  answersHidden?: boolean;
 }
 
 export type SaveStatus = 'idle' | 'saving' | 'saved' | 'offline';

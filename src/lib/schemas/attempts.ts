@@ -9,5 +9,7 @@ export const attemptRequestSchema = z.object({
   stage: stageSchema,
   answer: z.unknown().refine((a) => a !== undefined, 'An answer is required'),
   clientId: z.string({ required_error: 'clientId is required' }).uuid('clientId must be a UUID'),
+  /** The drill this attempt counts toward; the server checks the learner, the stage and the limit. */
+  drillId: z.string().uuid('drillId must be the id of a drill').optional(),
 });
 export type AttemptRequest = z.infer<typeof attemptRequestSchema>;

@@ -1,6 +1,7 @@
 import type { attempts } from '../../db/schema';
 import type { AttemptRequest } from '../schemas/attempts';
 import type { StageScore, StepResult } from '../scoring/types';
+import { withoutAnswers } from '../drills/answers';
 
 // Pure pieces of an attempt, shared by the endpoint and the benchmark's bare baseline so both write
 // the very same row and answer the very same JSON.
@@ -11,6 +12,7 @@ export interface AttemptView {
   procedure: string;
   version: number;
   stage: string;
+  drillId: string | null;
   score: number;
   maxScore: number;
   passed: boolean;
@@ -32,6 +34,7 @@ export function attemptRow(
     clientId: input.clientId,
     procedureVersionId,
     stage: input.stage,
+    drillId: input.drillId ?? null,
     answer: input.answer as object,
     score: score.score,
     maxScore: score.maxScore,
@@ -55,6 +58,7 @@ export function createdAttempt(
     procedure: version.slug,
     version: version.version,
     stage: input.stage,
+    drillId: input.drillId ?? null,
     score: score.score,
     maxScore: score.maxScore,
     passed: score.passed,
@@ -64,8 +68,12 @@ export function createdAttempt(
   };
 }
 
-/** The JSON shape of an attempt (docs/api.md documents it). */
-export function attemptJson(a: AttemptView) {
+/**
+ * The JSON shape of an attempt (docs/api.md documents it). With `answersHidden` (a drill that keeps its
+ * answers until the due date, shown to its learner) the lines keep ok/not ok but lose their words.
+ */
+export function attemptJson(attempt: AttemptView, { answersHidden = false }: { answersHidden?: boolean } = {}) {
+  const a = answersHidden ? withoutAnswers(attempt) : attempt;
   return {
     id: a.id,
     procedure: a.procedure,
@@ -78,6 +86,8 @@ export function attemptJson(a: AttemptView) {
     notes: a.notes,
     answer: a.answer,
     learnerId: a.learnerId,
+    drillId: a.drillId,
+    answersHidden,
     createdAt: a.createdAt,
   };
 }

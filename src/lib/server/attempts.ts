@@ -1,9 +1,14 @@
 import { and, eq } from 'drizzle-orm';
-import { db } from './db';
+import { db, type Db } from './db';
 import { attempts, classMembers, procedures, procedureVersions } from '../../db/schema';
 import { attemptRow, createdAttempt, type AttemptView } from './attempt-row';
-import { findVersion } from './procedure-store';
+import { attemptsOnDrill, lockDrillForLearner, type DrillOutcome, type Tx } from './drill-attempts';
+import { rulesOf } from './drill-store';
+import { findVersion, type StoredVersion } from './procedure-store';
+import { drillRefusal, type DrillRefusal } from '../drills/attempt-rules';
+import { drillProgress, type DrillAttempt } from '../drills/progress';
 import { scoreAttempt } from '../scoring';
+import type { StageScore } from '../scoring/types';
 import type { Issue } from '../procedure/validate';
 import type { AttemptRequest } from '../schemas/attempts';
 import type { SessionUser } from '../roles';
@@ -14,6 +19,7 @@ const viewColumns = {
   procedure: procedures.slug,
   version: procedureVersions.version,
   stage: attempts.stage,
+  drillId: attempts.drillId,
   score: attempts.score,
   maxScore: attempts.maxScore,
   passed: attempts.passed,
@@ -24,8 +30,8 @@ const viewColumns = {
   clientId: attempts.clientId,
 };
 
-function attemptQuery() {
-  return db
+function attemptQuery(exec: Db | Tx = db) {
+  return exec
     .select(viewColumns)
     .from(attempts)
     .innerJoin(procedureVersions, eq(procedureVersions.id, attempts.procedureVersionId))
@@ -33,10 +39,14 @@ function attemptQuery() {
 }
 
 export type RecordResult =
-  | { kind: 'created' | 'replayed'; attempt: AttemptView }
+  | { kind: 'created' | 'replayed'; attempt: AttemptView; drill: DrillOutcome | null }
   | { kind: 'unknown-procedure' }
   | { kind: 'invalid'; issues: Issue[] }
-  | { kind: 'client-id-reused' };
+  | { kind: 'client-id-reused' }
+  | { kind: 'drill-not-found' }
+  | { kind: 'drill-refused'; refusal: DrillRefusal };
+
+type Stored = Extract<RecordResult, { kind: 'created' | 'replayed' | 'client-id-reused' }>;
 
 /**
  * Scores the answer on the server against the stored version and keeps it. A clientId the learner
@@ -44,31 +54,74 @@ export type RecordResult =
  * first and the stored row is read only on a conflict: the common case costs two queries.
  */
 export async function recordAttempt(user: SessionUser, input: AttemptRequest): Promise<RecordResult> {
+  if (input.drillId) {
+    const drillId = input.drillId;
+    return db.transaction((tx) => recordOnDrill(tx, user, input, drillId));
+  }
   const stored = await findVersion(db, input.procedure, input.version);
   if (!stored) return { kind: 'unknown-procedure' };
   const scored = scoreAttempt(stored.document, input.stage, input.answer);
   if (!scored.ok) return { kind: 'invalid', issues: scored.issues };
+  return storeAttempt(db, user, input, stored, scored.score);
+}
 
-  const row = attemptRow(user.id, input, stored.id, scored.score);
-  const [inserted] = await db
+async function storeAttempt(exec: Db | Tx, user: SessionUser, input: AttemptRequest, stored: StoredVersion, score: StageScore): Promise<Stored> {
+  const row = attemptRow(user.id, input, stored.id, score);
+  const [inserted] = await exec
     .insert(attempts)
     .values(row)
     .onConflictDoNothing({ target: [attempts.userId, attempts.clientId] })
     .returning({ id: attempts.id, createdAt: attempts.createdAt });
-  if (inserted) return { kind: 'created', attempt: createdAttempt(user.id, input, stored, scored.score, inserted) };
+  if (inserted) return { kind: 'created', attempt: createdAttempt(user.id, input, stored, score, inserted), drill: null };
   // This clientId was used before (a retry, or a race with one): answer with the stored row.
-  const previous = await findByClientId(user.id, input.clientId);
+  const previous = await findByClientId(exec, user.id, input.clientId);
   if (!previous) throw new Error('attempt conflict without a stored row');
-  return sameSubmission(previous, input) ? { kind: 'replayed', attempt: previous } : { kind: 'client-id-reused' };
+  return sameSubmission(previous, input) ? { kind: 'replayed', attempt: previous, drill: null } : { kind: 'client-id-reused' };
 }
 
-async function findByClientId(userId: string, clientId: string) {
-  const [row] = await attemptQuery().where(and(eq(attempts.userId, userId), eq(attempts.clientId, clientId)));
+/**
+ * An attempt on a drill, in one transaction: the learner must be in the drill's class, a retried submit
+ * gets its stored attempt back (even once the drill is closed or the limit reached), and otherwise the
+ * drill must be open, ask for this stage of its pinned version and have attempts left on it. The locks
+ * taken by lockDrillForLearner make the count and the insert one step for this learner.
+ */
+async function recordOnDrill(tx: Tx, user: SessionUser, input: AttemptRequest, drillId: string): Promise<RecordResult> {
+  const drill = await lockDrillForLearner(tx, drillId, user.id);
+  if (!drill) return { kind: 'drill-not-found' };
+  const now = new Date();
+  const earlier = await attemptsOnDrill(tx, drillId, user.id);
+  const outcome = (made: DrillAttempt[]): DrillOutcome => ({
+    id: drill.id,
+    answersAfterDue: drill.answersAfterDue,
+    dueAt: drill.dueAt,
+    progress: drillProgress(rulesOf(drill), made, now),
+  });
+
+  const previous = await findByClientId(tx, user.id, input.clientId);
+  if (previous) return sameSubmission(previous, input) ? { kind: 'replayed', attempt: previous, drill: outcome(earlier) } : { kind: 'client-id-reused' };
+
+  const refusal = drillRefusal(drill, input, earlier.filter((a) => a.stage === input.stage).length, now);
+  if (refusal) return { kind: 'drill-refused', refusal };
+  const scored = scoreAttempt(drill.pinned.document, input.stage, input.answer);
+  if (!scored.ok) return { kind: 'invalid', issues: scored.issues };
+  const stored = await storeAttempt(tx, user, input, drill.pinned, scored.score);
+  if (stored.kind !== 'created') return stored.kind === 'replayed' ? { ...stored, drill: outcome(earlier) } : stored;
+  const made = { stage: input.stage, score: stored.attempt.score, maxScore: stored.attempt.maxScore, createdAt: stored.attempt.createdAt };
+  return { ...stored, drill: outcome([...earlier, made]) };
+}
+
+async function findByClientId(exec: Db | Tx, userId: string, clientId: string) {
+  const [row] = await attemptQuery(exec).where(and(eq(attempts.userId, userId), eq(attempts.clientId, clientId)));
   return row ?? null;
 }
 
 function sameSubmission(previous: AttemptView, input: AttemptRequest): boolean {
-  return previous.procedure === input.procedure && previous.stage === input.stage && (input.version ?? previous.version) === previous.version;
+  return (
+    previous.procedure === input.procedure &&
+    previous.stage === input.stage &&
+    (input.version ?? previous.version) === previous.version &&
+    previous.drillId === (input.drillId ?? null)
+  );
 }
 
 /**
