@@ -1,6 +1,8 @@
+import { readFile } from 'node:fs/promises';
 import { expect, test } from '@playwright/test';
+import Papa from 'papaparse';
 import { demoProcedure } from '../support/demo-procedures';
-import { shot, signIn, signOut } from './helpers';
+import { islandsReady, shot, signIn, signOut } from './helpers';
 import { answerStage, checkStage } from './trainer-steps';
 
 // The browser runs in US Central time, so the due date the instructor picks is read in that zone and the
@@ -10,11 +12,12 @@ test.describe.configure({ timeout: 180_000 });
 
 const flywheel = demoProcedure('wren-160-flywheel');
 
-test('an instructor assigns a drill; a learner sees it, passes it in the trainer and sees the new standing', async ({ page }) => {
+test('an instructor assigns a drill; a learner passes it in the trainer; the instructor sees the score, the step analysis and the export', async ({ page }) => {
   await signIn(page, 'instructor@larkspur.example');
   await page.getByRole('link', { name: 'Small Engines I', exact: true }).click();
   const form = page.getByRole('form', { name: 'Assign a drill' });
   await expect(form).toBeVisible();
+  await islandsReady(page);
 
   await form.getByLabel('Procedure').selectOption({ label: `${flywheel.title} (version 1)` });
   await form.getByLabel('Wrench').uncheck();
@@ -85,6 +88,31 @@ test('an instructor assigns a drill; a learner sees it, passes it in the trainer
   await expect(after).toContainText('Passed');
   await expect(after.getByTestId('best-score')).toHaveText('100 %');
   await shot(page, 'drill-learner-passed');
+  await signOut(page);
+
+  // Back to the instructor: the score is in the class results, the drill in the step analysis, and the grade export.
+  await signIn(page, 'instructor@larkspur.example');
+  await page.getByRole('link', { name: 'Small Engines I', exact: true }).click();
+  await page.getByRole('link', { name: /Class results and grade export/ }).click();
+  await islandsReady(page);
+  await page.getByLabel('Search by name').fill('Ava');
+  await expect(page.getByTestId('results-table').getByRole('link', { name: /^Ava Lindqvist, Order: best 100 %/ })).toBeVisible();
+  await page.getByRole('tab', { name: 'Step analysis' }).click();
+  await page.getByLabel('Drill').selectOption({ label: `${flywheel.title} (due 2031-07-15)` });
+  await expect(page.getByTestId('analysis-basis')).toContainText('1 learner has tried every stage');
+  await expect(page.getByTestId('step-table').locator('tbody tr')).not.toHaveCount(0);
+  await shot(page, 'drill-step-analysis');
+
+  await page.getByRole('tab', { name: 'Learners' }).click();
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('download-csv').click()]);
+  const rows = Papa.parse<Record<string, string>>((await readFile((await download.path())!, 'utf8')).replace(/^\uFEFF/, ''), {
+    header: true,
+    skipEmptyLines: true,
+  }).data;
+  const ava = rows.find((r) => r['E-mail'] === 'learner1@larkspur.example');
+  const drillColumn = `${flywheel.title} v1, due 2031-07-15`;
+  expect(ava?.[`${drillColumn}: Order best %`]).toBe('100');
+  expect(ava?.[`${drillColumn}: status`]).toBe('passed');
 });
 
 test('an instructor edits a drill and closes it; the learner then sees it closed, with nothing to open', async ({ page }) => {
@@ -99,6 +127,7 @@ test('an instructor edits a drill and closes it; the learner then sees it closed
   const { id, learners } = (await made.json()) as { id: string; learners: number };
   await page.reload();
 
+  await islandsReady(page);
   const row = page.locator(`[data-drill-id="${id}"]`);
   await row.getByRole('button', { name: /^Edit drill/ }).click();
   const edit = row.getByRole('form', { name: /^Edit drill/ });

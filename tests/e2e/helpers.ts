@@ -18,3 +18,11 @@ export async function signOut(page: Page) {
 export function shot(page: Page, name: string) {
   return page.screenshot({ path: `test-results/screens/${name}.png`, fullPage: true });
 }
+
+/**
+ * Waits until every React island on the page has hydrated: Astro drops the island's `ssr` attribute then.
+ * A control changed before that is shown but not yet in React's state.
+ */
+export async function islandsReady(page: Page) {
+  await expect(page.locator('astro-island[ssr]')).toHaveCount(0);
+}
