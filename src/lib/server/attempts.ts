@@ -3,6 +3,7 @@ import { db } from './db';
 import { attempts, classMembers, procedures, procedureVersions } from '../../db/schema';
 import { attemptRow, createdAttempt, type AttemptView } from './attempt-row';
 import { findVersion } from './procedure-store';
+import { recordMisses } from './rework';
 import { scoreAttempt } from '../scoring';
 import type { Issue } from '../procedure/validate';
 import type { AttemptRequest } from '../schemas/attempts';
@@ -55,7 +56,11 @@ export async function recordAttempt(user: SessionUser, input: AttemptRequest): P
     .values(row)
     .onConflictDoNothing({ target: [attempts.userId, attempts.clientId] })
     .returning({ id: attempts.id, createdAt: attempts.createdAt });
-  if (inserted) return { kind: 'created', attempt: createdAttempt(user.id, input, stored, scored.score, inserted) };
+  if (inserted) {
+    // Missed steps go to the learner's rework queue; a fault there is logged and never loses the attempt.
+    await recordMisses({ userId: user.id, attemptId: inserted.id, procedureVersionId: stored.id, document: stored.document, stage: input.stage, results: scored.score.results, at: inserted.createdAt });
+    return { kind: 'created', attempt: createdAttempt(user.id, input, stored, scored.score, inserted) };
+  }
   // This clientId was used before (a retry, or a race with one): answer with the stored row.
   const previous = await findByClientId(user.id, input.clientId);
   if (!previous) throw new Error('attempt conflict without a stored row');
