@@ -28,6 +28,8 @@ export function navLinksFor(role: Role): { href: string; label: string }[] {
       return [
         { href: '/learn', label: 'My bench' },
         { href: '/train', label: 'Practise' },
+        { href: '/rework', label: 'Rework' },
+        { href: '/progress', label: 'Progress' },
         { href: '/tools/wrench', label: 'Wrench' },
       ];
     case 'instructor':

@@ -5,6 +5,7 @@ import { attemptRow, createdAttempt, type AttemptView } from './attempt-row';
 import { attemptsOnDrill, lockDrillForLearner, type DrillOutcome, type Tx } from './drill-attempts';
 import { rulesOf } from './drill-store';
 import { findVersion, type StoredVersion } from './procedure-store';
+import { recordMisses } from './rework';
 import { drillRefusal, type DrillRefusal } from '../drills/attempt-rules';
 import { drillProgress, type DrillAttempt } from '../drills/progress';
 import { scoreAttempt } from '../scoring';
@@ -39,7 +40,8 @@ function attemptQuery(exec: Db | Tx = db) {
 }
 
 export type RecordResult =
-  | { kind: 'created' | 'replayed'; attempt: AttemptView; drill: DrillOutcome | null }
+  | { kind: 'created'; attempt: AttemptView; drill: DrillOutcome | null; version: StoredVersion }
+  | { kind: 'replayed'; attempt: AttemptView; drill: DrillOutcome | null }
   | { kind: 'unknown-procedure' }
   | { kind: 'invalid'; issues: Issue[] }
   | { kind: 'client-id-reused' }
@@ -54,10 +56,17 @@ type Stored = Extract<RecordResult, { kind: 'created' | 'replayed' | 'client-id-
  * first and the stored row is read only on a conflict: the common case costs two queries.
  */
 export async function recordAttempt(user: SessionUser, input: AttemptRequest): Promise<RecordResult> {
-  if (input.drillId) {
-    const drillId = input.drillId;
-    return db.transaction((tx) => recordOnDrill(tx, user, input, drillId));
+  const drillId = input.drillId;
+  const result = drillId ? await db.transaction((tx) => recordOnDrill(tx, user, input, drillId)) : await recordPractice(user, input);
+  if (result.kind === 'created') {
+    // After the commit, so the queue's rows can refer to the stored attempt; a fault there is logged and never loses it.
+    const { attempt, version } = result;
+    await recordMisses({ userId: user.id, attemptId: attempt.id, procedureVersionId: version.id, document: version.document, stage: input.stage, results: attempt.results, at: attempt.createdAt });
   }
+  return result;
+}
+
+async function recordPractice(user: SessionUser, input: AttemptRequest): Promise<RecordResult> {
   const stored = await findVersion(db, input.procedure, input.version);
   if (!stored) return { kind: 'unknown-procedure' };
   const scored = scoreAttempt(stored.document, input.stage, input.answer);
@@ -72,7 +81,7 @@ async function storeAttempt(exec: Db | Tx, user: SessionUser, input: AttemptRequ
     .values(row)
     .onConflictDoNothing({ target: [attempts.userId, attempts.clientId] })
     .returning({ id: attempts.id, createdAt: attempts.createdAt });
-  if (inserted) return { kind: 'created', attempt: createdAttempt(user.id, input, stored, score, inserted), drill: null };
+  if (inserted) return { kind: 'created', attempt: createdAttempt(user.id, input, stored, score, inserted), drill: null, version: stored };
   // This clientId was used before (a retry, or a race with one): answer with the stored row.
   const previous = await findByClientId(exec, user.id, input.clientId);
   if (!previous) throw new Error('attempt conflict without a stored row');
