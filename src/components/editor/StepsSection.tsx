@@ -174,8 +174,12 @@ function StepRow({ id, index, count, register: registerTarget, onMove, onRemove,
   const parts = useWatch({ control, name: 'parts' });
   const steps = useWatch({ control, name: 'steps' });
   const mark = useWatch({ control, name: `anyOrder.${index}` }) ?? false;
-  const step = steps[index]!;
+  const step = steps[index];
   const at = `steps.${index}`;
+  const textIssue = useIssueProps(`${at}.text`);
+  const cautionIssue = useIssueProps(`${at}.caution`);
+  // For the one render between a step's removal and its row's, there is nothing to show.
+  if (!step) return null;
   const label = `Step ${index + 1}`;
   return (
     <li
@@ -198,7 +202,7 @@ function StepRow({ id, index, count, register: registerTarget, onMove, onRemove,
           <div className="min-w-0 flex-1 space-y-3">
             <div>
               <label htmlFor={`${at}-text`} className="field-label">{label}: what the learner does</label>
-              <textarea id={`${at}-text`} rows={2} className="field-input py-2" {...register(`steps.${index}.text`)} {...useIssueProps(`${at}.text`)} />
+              <textarea id={`${at}-text`} rows={2} className="field-input py-2" {...register(`steps.${index}.text`)} {...textIssue} />
               <FieldIssue path={`${at}.text`} />
               <FieldIssue path={`${at}.key`} />
             </div>
@@ -237,7 +241,7 @@ function StepRow({ id, index, count, register: registerTarget, onMove, onRemove,
             />
             <div>
               <label htmlFor={`${at}-caution`} className="field-label">Caution for this step (optional)</label>
-              <input id={`${at}-caution`} className="field-input" {...register(`steps.${index}.caution`)} {...useIssueProps(`${at}.caution`)} />
+              <input id={`${at}-caution`} className="field-input" {...register(`steps.${index}.caution`)} {...cautionIssue} />
               <FieldIssue path={`${at}.caution`} />
             </div>
             {index > 0 && (
