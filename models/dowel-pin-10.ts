@@ -15,4 +15,5 @@ export const dowelPin10: PartModel = {
   anchors: [],
   assemblyAxis: [0, 1, 0],
   explodeDistance: 0.03,
+  pin: DOWEL_PIN_10_SIZE,
 };

@@ -15,4 +15,5 @@ export const dowelPin8: PartModel = {
   anchors: [],
   assemblyAxis: [0, 1, 0],
   explodeDistance: 0.03,
+  pin: DOWEL_PIN_8_SIZE,
 };

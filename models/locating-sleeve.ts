@@ -24,4 +24,5 @@ export const locatingSleeve: PartModel = {
   anchors: [],
   assemblyAxis: [0, 1, 0],
   explodeDistance: 0.025,
+  pin: LOCATING_SLEEVE_SIZE,
 };

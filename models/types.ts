@@ -97,4 +97,6 @@ export interface PartModel {
   assemblyAxis: Vec3;
   /** How far it moves, metres; 0 for the part everything else is built on. */
   explodeDistance: number;
+  /** Dowel pins and sleeves: diameter × length in millimetres, so a procedure can take the size from the model. */
+  pin?: { diameterMm: number; lengthMm: number };
 }

@@ -94,6 +94,27 @@ export const procedureVersions = pgTable(
   (t) => [unique('procedure_versions_procedure_version_uq').on(t.procedureId, t.version)],
 );
 
+/**
+ * An instructor's procedure in the making. The document may be incomplete (it is checked in full only
+ * when published); basedOn is the procedure a new version is being prepared for, null for a new one.
+ * revision rises with every save, so a stale window cannot overwrite newer work.
+ */
+export const procedureDrafts = pgTable(
+  'procedure_drafts',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    ownerId: text('owner_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    basedOn: uuid('based_on').references(() => procedures.id, { onDelete: 'cascade' }),
+    document: jsonb('document').$type<Record<string, unknown>>().notNull(),
+    revision: integer('revision').notNull().default(1),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('procedure_drafts_owner_idx').on(t.ownerId, t.updatedAt)],
+);
+
 export const stageEnum = pgEnum('stage', STAGES);
 
 /** One learner's scored submission of one stage; clientId makes a retried submit idempotent. */
@@ -347,3 +368,4 @@ export const reworkAnswers = pgTable(
 export type UserRow = typeof users.$inferSelect;
 export type ClassRow = typeof classes.$inferSelect;
 export type DrillRow = typeof drills.$inferSelect;
+export type ProcedureDraftRow = typeof procedureDrafts.$inferSelect;

@@ -17,6 +17,7 @@ describe('three.js stays out of every page but the trainer', () => {
     { path: '/sign-in', as: null },
     { path: '/learn', as: 'learner1@larkspur.example' },
     { path: '/teach', as: 'instructor@larkspur.example' },
+    { path: '/teach/procedures', as: 'instructor@larkspur.example' },
   ];
   for (const page of pages) {
     it(`${page.path} loads no three.js, not even lazily`, async () => {
@@ -26,6 +27,14 @@ describe('three.js stays out of every page but the trainer', () => {
       for (const [url, code] of reachable(assetUrls(html), true)) expect(code, url).not.toMatch(THREE_SIGNATURE);
     });
   }
+
+  it('the procedure editor loads no three.js, not even lazily (its bolt map is 2D)', async () => {
+    const { client } = await demoUser('instructor@larkspur.example');
+    const draft = await client.post('/api/procedure-drafts', {});
+    const html = await pageHtml(client, `/teach/procedures/drafts/${draft.body.id}`);
+    expect(html).toMatch(/component-url="\/_astro\/ProcedureEditor\./);
+    for (const [url, code] of reachable(assetUrls(html), true)) expect(code, url).not.toMatch(THREE_SIGNATURE);
+  });
 
   it('/train/wren-160-sump mounts the trainer island, which brings three.js with it', async () => {
     const { client } = await demoUser('learner1@larkspur.example');

@@ -20,6 +20,8 @@ const key = z
   .min(1)
   .max(64)
   .regex(/^[a-z0-9][a-z0-9-]*$/, 'use lower-case letters, digits and dashes');
+/** Keys of parts, anchors, steps, groups and bolts, and slugs (named so the JSON Schema can refer to it). */
+export const keySchema = key;
 
 export const vec3Schema = z.tuple([z.number().finite(), z.number().finite(), z.number().finite()]);
 export type Vec3 = z.infer<typeof vec3Schema>;

@@ -35,8 +35,13 @@ export type PublishResult =
 /**
  * Validates a document and stores it as the procedure's next version, unless it equals the latest
  * version already stored (then nothing is written). Versions are never changed once written.
+ * Takes a transaction too, so a caller can check ownership and publish in one.
  */
-export async function publishProcedure(db: Database, input: unknown, createdBy: string | null = null): Promise<PublishResult> {
+export async function publishProcedure(
+  db: Database | Transaction,
+  input: unknown,
+  createdBy: string | null = null,
+): Promise<PublishResult> {
   const checked = validateProcedure(input);
   if (!checked.ok) return checked;
   const doc = checked.procedure;

@@ -1,0 +1,178 @@
+import { randomUUID } from 'node:crypto';
+import { expect, test, type Page } from '@playwright/test';
+import { validateProcedure } from '../../src/lib/procedure/validate';
+import type { Procedure } from '../../src/lib/procedure/schema';
+import { COVER_BOLT_HOLES, COVER_STEPS } from '../support/cover-procedure';
+import { shot, signIn, signOut } from './helpers';
+import { answerStage, checkStage, openStage, openTrainer, press, signUpLearner } from './trainer-steps';
+
+// An instructor builds a small four-bolt cover job from the part library in the editor, publishes it, and a
+// learner then does every stage of it in the trainer with full marks.
+
+test.describe.configure({ timeout: 300_000 });
+
+const step = (page: Page, n: number) => page.getByRole('group', { name: `Step ${n}`, exact: true });
+const part = (page: Page, name: string) => page.getByRole('group', { name, exact: true });
+
+async function addPart(page: Page, modelName: string) {
+  await page.getByLabel('Part from the library').selectOption({ label: modelName });
+  await page.getByRole('button', { name: 'Add part' }).click();
+  await expect(part(page, modelName.replace(/ \(.*\)$/, ''))).toBeVisible();
+}
+
+async function addStep(page: Page, n: number, text: string, partNames: string[]) {
+  await page.getByRole('button', { name: 'Add a step' }).click();
+  await step(page, n).getByLabel(`Step ${n}: what the learner does`).fill(text);
+  for (const name of partNames) await step(page, n).getByRole('checkbox', { name, exact: true }).check();
+}
+
+const text = (key: string) => COVER_STEPS.find((s) => s.key === key)!.text;
+
+test('an instructor builds a four-bolt cover procedure, publishes it, and a learner completes it with full marks', async ({ page }) => {
+  const title = `Sump cover, four-bolt practice ${randomUUID().slice(0, 4)}`;
+  await signIn(page, 'instructor@larkspur.example');
+  await page.getByRole('link', { name: /Procedures: build/ }).click();
+  await page.getByRole('button', { name: 'New procedure' }).click();
+  await expect(page.getByRole('heading', { name: 'New procedure', level: 1 })).toBeVisible();
+
+  // Details.
+  await page.getByLabel('Title').fill(title);
+  await page.getByLabel('Summary').fill("Fit the sump cover on four flange bolts. Demo values for a fictional engine; real work uses the engine maker's specifications.");
+  await page.getByRole('button', { name: 'Add the standard cautions' }).click();
+  await page.getByLabel(/^Demo values/).check();
+  for (const stage of ['Pins', 'Pattern', 'Wrench', 'Final check']) {
+    await page.getByRole('group', { name: 'Stages learners do' }).getByRole('checkbox', { name: new RegExp(`^${stage} —`) }).check();
+  }
+
+  // Parts from the library.
+  for (const name of ['Crankcase (block)', 'Sump cover (cover)', 'Sump gasket (gasket)', '8 mm dowel pin (dowel-pin)', '10 mm dowel pin (dowel-pin)', 'Flange bolt M6 (bolt)']) {
+    await addPart(page, name);
+  }
+  await part(page, 'Sump gasket').getByLabel('Name in class').fill('New sump gasket');
+  await part(page, '8 mm dowel pin').getByLabel('In the kit').fill('2');
+  await part(page, '10 mm dowel pin').getByLabel('Decoy').check();
+  await part(page, 'Flange bolt M6').getByLabel('In the kit').fill('4');
+
+  // Steps, added out of order and then put right with the buttons and by keyboard drag.
+  await addStep(page, 1, text('step-pins'), ['8 mm dowel pin']);
+  await addStep(page, 2, text('step-gasket'), ['New sump gasket']);
+  await addStep(page, 3, text('step-bolts'), ['Flange bolt M6']);
+  await addStep(page, 4, text('step-seat'), ['Sump cover', 'Crankcase']);
+  await addStep(page, 5, text('step-face'), ['Sump cover']);
+  await step(page, 5).getByRole('button', { name: /^Up/ }).click();
+  await step(page, 4).getByRole('button', { name: /^Up/ }).click();
+  // Steps now: pins, gasket, face, bolts, seat. Pick up "bolts" (4) with Space, move it down one, drop it.
+  // Each key waits for the announcement of the one before, as a screen reader user hears it.
+  const announced = page.getByRole('status').filter({ hasText: /step|position/i });
+  const handle = step(page, 4).getByRole('button', { name: 'Drag step 4 to a new place' });
+  await press(page, handle, 'Space');
+  await expect(handle).toHaveAttribute('aria-pressed', 'true');
+  await page.keyboard.press('ArrowDown');
+  await expect(announced).toContainText('Step 4 is over position 5');
+  await page.keyboard.press('Space');
+  await expect(announced).toContainText(`Dropped at position 5: ${text('step-bolts')}`);
+  await expect(step(page, 5).getByLabel('Step 5: what the learner does')).toHaveValue(text('step-bolts'));
+  await expect(step(page, 4).getByLabel('Step 4: what the learner does')).toHaveValue(text('step-seat'));
+  await step(page, 3).getByLabel('May come in any order with the previous step').check();
+  const graph = page.getByTestId('precedence-graph');
+  await expect(graph).toContainText('Resulting order: 4 columns');
+  await expect(graph).toContainText('Step 3 comes after step 1');
+  await expect(graph).toContainText('Step 4 comes after steps 2, 3');
+
+  // An empty required field is named beside it (and in the list at the top) when the instructor checks.
+  await page.getByRole('button', { name: 'Check for problems' }).click();
+  await expect(page.getByTestId('issue-summary')).toBeVisible();
+  await expect(page.getByRole('group', { name: 'Wrench task' })).toContainText('⚠ Required');
+  await shot(page, 'editor-problems');
+
+  // The fastener group on every other sump bolt hole, 11 N·m in two passes, cross pattern.
+  await page.getByRole('button', { name: 'Add a fastener group' }).click();
+  const group = page.getByRole('group', { name: 'Fastener group 1' });
+  await group.getByLabel('Group name').fill('Cover bolts');
+  await group.getByLabel('Fastener part').selectOption({ label: 'Flange bolt M6 (4 in the kit)' });
+  for (const hole of COVER_BOLT_HOLES) await group.getByLabel(`Sump bolt ${hole.slice(-1)} · threaded · 6\u00a0mm`).check();
+  await group.getByLabel('Torque spec').fill('11');
+  await group.getByLabel('Tolerance, ± %').fill('10');
+  // Cross pattern for four bolts round a circle: 1-3-2-4 (from memory of ASME PCC-1), here holes 1, 5, 3, 7.
+  await expect(page.getByRole('list', { name: 'Accepted tightening sequence' })).toHaveText(['Bolt 1', 'Bolt 5', 'Bolt 3', 'Bolt 7'].join(''));
+
+  // Wrench and final check.
+  await expect(page.getByLabel('Spec from group')).toHaveValue('bolts');
+  await page.getByRole('button', { name: 'Use the bolt count (4)' }).click();
+  await page.getByLabel('Crankshaft turns without binding').fill('1');
+
+  // With the fields complete, the cross-checks speak: the pins have no holes yet.
+  await expect(part(page, '8 mm dowel pin')).toContainText('pin dowel-pin-8 has no hole');
+  await shot(page, 'editor-pin-without-hole');
+
+  // Pins into the dowel holes.
+  for (const [n, hole] of [[1, 'Dowel hole A'], [2, 'Dowel hole B']] as const) {
+    await page.getByRole('button', { name: 'Add a pin seat' }).click();
+    const seat = page.getByRole('group', { name: `Pin seat ${n}` });
+    await seat.getByLabel('Pin').selectOption({ label: '8 mm dowel pin (8 × 14\u00a0mm)' });
+    await seat.getByLabel('Hole').selectOption({ label: `${hole} · locating · 8\u00a0mm` });
+  }
+  await expect(part(page, '8 mm dowel pin')).not.toContainText('has no hole');
+
+  // The draft is saved as it goes and comes back after a reload.
+  await expect(page.locator('[data-save-status="saved"]')).toBeVisible({ timeout: 15_000 });
+  await page.reload();
+  await expect(page.getByLabel('Title')).toHaveValue(title);
+  await expect(page.getByRole('list', { name: 'Accepted tightening sequence' })).toHaveText(['Bolt 1', 'Bolt 5', 'Bolt 3', 'Bolt 7'].join(''));
+  await page.getByRole('button', { name: 'Check for problems' }).click();
+  await expect(page.getByText('No problems found: ready to publish.')).toBeVisible();
+  await shot(page, 'editor-ready');
+
+  await page.getByRole('button', { name: 'Publish', exact: true }).click();
+  await expect(page.getByTestId('published')).toContainText('version 1');
+  const slug = new URL(page.url()).searchParams.get('published')!;
+  expect(slug).toMatch(/^sump-cover-four-bolt-practice-/);
+  await expect(page.getByTestId('my-procedures')).toContainText(title);
+  await shot(page, 'editor-published');
+
+  // What was published: the document as the class will be scored on it.
+  const exported = await page.request.get(`/api/procedures/${slug}/export`);
+  const checked = validateProcedure((await exported.json()).procedure);
+  if (!checked.ok) throw new Error(JSON.stringify(checked.issues));
+  const procedure: Procedure = checked.procedure;
+  expect(procedure.steps.map((s) => s.text)).toEqual(['step-pins', 'step-gasket', 'step-face', 'step-seat', 'step-bolts'].map(text));
+  expect(procedure.pinSeats).toEqual([
+    { part: 'dowel-pin-8', anchor: 'dowel-hole-a' },
+    { part: 'dowel-pin-8', anchor: 'dowel-hole-b' },
+  ]);
+  expect(procedure.fastenerGroups[0]).toMatchObject({ part: 'flange-bolt', torque: { value: 11, unit: 'N·m', tolerancePct: 10 }, passes: [0.5, 1], rule: 'cross' });
+  expect(procedure.parts.find((p) => p.key === 'dowel-pin-10')).toMatchObject({ decoy: true });
+  await signOut(page);
+
+  // A learner does every stage in the trainer.
+  await signUpLearner(page);
+  await openTrainer(page, slug);
+  await expect(page.getByRole('heading', { name: title, level: 1 })).toBeVisible();
+  for (const stage of procedure.stages) {
+    await openStage(page, stage);
+    await answerStage(page, procedure, stage);
+    const verdict = await checkStage(page);
+    await expect(verdict).toHaveText(/^(✓ )?Passed/);
+    await expect(verdict).toContainText(/(\d+) of \1$/);
+  }
+  await expect(page.getByRole('tab', { name: /Passed/ })).toHaveCount(procedure.stages.length);
+  await shot(page, 'editor-cover-learner-done');
+});
+
+test('a learner is refused the editor pages; another instructor cannot open a draft', async ({ page }) => {
+  await signIn(page, 'instructor@larkspur.example');
+  await page.goto('/teach/procedures');
+  await page.getByRole('button', { name: 'New procedure' }).click();
+  await expect(page.getByRole('heading', { name: 'New procedure', level: 1 })).toBeVisible();
+  const editorUrl = page.url();
+  await signOut(page);
+
+  await signIn(page, 'instructor2@larkspur.example');
+  const other = await page.goto(editorUrl);
+  expect(other?.status()).toBe(404);
+  await signOut(page);
+
+  await signUpLearner(page);
+  const learner = await page.goto('/teach/procedures');
+  expect(learner?.status()).toBe(403);
+});
