@@ -3,11 +3,11 @@ import { expect, test, type Page } from '@playwright/test';
 import { validateProcedure } from '../../src/lib/procedure/validate';
 import type { Procedure } from '../../src/lib/procedure/schema';
 import { COVER_BOLT_HOLES, COVER_STEPS } from '../support/cover-procedure';
-import { shot, signIn, signOut } from './helpers';
-import { answerStage, checkStage, openStage, openTrainer, press, signUpLearner } from './trainer-steps';
+import { islandsReady, shot, signIn, signOut } from './helpers';
+import { answerStage, checkStage, openStage, press, signUpLearner } from './trainer-steps';
 
-// An instructor builds a small four-bolt cover job from the part library in the editor, publishes it, and a
-// learner then does every stage of it in the trainer with full marks.
+// An instructor builds a small four-bolt cover job from the part library in the editor, publishes it and
+// assigns it to the class, and a learner then does every stage of the drill in the trainer with full marks.
 
 test.describe.configure({ timeout: 300_000 });
 
@@ -28,7 +28,7 @@ async function addStep(page: Page, n: number, text: string, partNames: string[])
 
 const text = (key: string) => COVER_STEPS.find((s) => s.key === key)!.text;
 
-test('an instructor builds a four-bolt cover procedure, publishes it, and a learner completes it with full marks', async ({ page }) => {
+test('an instructor builds a four-bolt cover procedure, publishes it, assigns it, and a learner completes it with full marks', async ({ page }) => {
   const title = `Sump cover, four-bolt practice ${randomUUID().slice(0, 4)}`;
   await signIn(page, 'instructor@larkspur.example');
   await page.getByRole('link', { name: /Procedures: build/ }).click();
@@ -142,11 +142,28 @@ test('an instructor builds a four-bolt cover procedure, publishes it, and a lear
   ]);
   expect(procedure.fastenerGroups[0]).toMatchObject({ part: 'flange-bolt', torque: { value: 11, unit: 'N·m', tolerancePct: 10 }, passes: [0.5, 1], rule: 'cross' });
   expect(procedure.parts.find((p) => p.key === 'dowel-pin-10')).toMatchObject({ decoy: true });
+
+  // The instructor assigns it to the class as a drill on every stage.
+  await page.goto('/teach');
+  await page.getByRole('link', { name: 'Small Engines I', exact: true }).click();
+  await islandsReady(page);
+  const assign = page.getByRole('form', { name: 'Assign a drill' });
+  await assign.getByLabel('Procedure').selectOption({ label: `${title} (version 1)` });
+  await assign.getByLabel('Due date and time').fill('2031-09-01T17:00');
+  await assign.getByLabel('Pass mark (%)').fill('100');
+  const created = page.waitForResponse((r) => r.request().method() === 'POST' && /\/api\/classes\/[^/]+\/drills$/.test(r.url()));
+  await assign.getByRole('button', { name: 'Assign drill' }).click();
+  const drill = (await (await created).json()) as { id: string; stages: string[] };
+  expect(drill.stages).toEqual(procedure.stages);
   await signOut(page);
 
-  // A learner does every stage in the trainer.
+  // A new learner of the class opens the drill from their page and does every stage in the trainer.
   await signUpLearner(page);
-  await openTrainer(page, slug);
+  expect((await page.request.post('/api/classes/join', { data: { joinCode: 'WREN4SMA' } })).status()).toBe(200);
+  await page.goto('/learn');
+  await page.locator(`[data-drill-id="${drill.id}"]`).getByRole('link', { name: title }).click();
+  await expect(page).toHaveURL(new RegExp(`/train/${slug}\\?drill=${drill.id}$`));
+  await expect(page.getByRole('tablist', { name: 'Stages' })).toBeVisible();
   await expect(page.getByRole('heading', { name: title, level: 1 })).toBeVisible();
   for (const stage of procedure.stages) {
     await openStage(page, stage);
@@ -157,6 +174,8 @@ test('an instructor builds a four-bolt cover procedure, publishes it, and a lear
   }
   await expect(page.getByRole('tab', { name: /Passed/ })).toHaveCount(procedure.stages.length);
   await shot(page, 'editor-cover-learner-done');
+  await page.goto('/learn');
+  await expect(page.locator(`[data-drill-id="${drill.id}"]`)).toContainText('Passed');
 });
 
 test('a learner is refused the editor pages; another instructor cannot open a draft', async ({ page }) => {

@@ -1,12 +1,10 @@
 import { randomUUID } from 'node:crypto';
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test } from '@playwright/test';
 import { demoBenchPhoto } from '../../scripts/demo-photo';
-import { shot, signIn, signOut } from './helpers';
+import { islandsReady, shot, signIn, signOut } from './helpers';
 
 const SUMP = 'Wren 160: install the sump';
 
-/** Astro drops an island's `ssr` attribute once React has hydrated it; before that, inputs have no handlers. */
-const hydrated = (page: Page) => expect(page.locator('astro-island[ssr]')).toHaveCount(0);
 
 test('a learner uploads a bench photo, the instructor signs the sump off with it, the learner sees the pass', async ({ page }) => {
   const photoName = `finished-sump-${randomUUID().slice(0, 6)}.png`;
@@ -19,7 +17,7 @@ test('a learner uploads a bench photo, the instructor signs the sump off with it
   await expect(page.getByTestId('cautions')).toContainText('spark plug lead');
   await expect(page.getByTestId('cautions')).toContainText("The engine maker's data, local codes and licensed practice rule");
 
-  await hydrated(page);
+  await islandsReady(page);
   const sump = page.getByTestId('bench-wren-160-sump');
   // A text file dressed up as a photo is refused with what it really is.
   await sump.getByLabel(`Add photos of ${SUMP}`).setInputFiles({
@@ -33,7 +31,9 @@ test('a learner uploads a bench photo, the instructor signs the sump off with it
   await expect(sump.getByRole('status')).toContainText('Photo uploaded');
   const tile = sump.getByRole('img', { name: photoName });
   await expect(tile).toBeVisible();
-  // The picture really came back from the server (a broken image has no natural width).
+  // The picture really came back from the server (a broken image has no natural width). It loads lazily,
+  // and other procedures in the list may push it below the fold.
+  await tile.scrollIntoViewIfNeeded();
   await expect.poll(() => tile.evaluate((img: HTMLImageElement) => img.naturalWidth)).toBe(160);
   await shot(page, 'bench-learner-uploaded');
   await signOut(page);
@@ -43,7 +43,7 @@ test('a learner uploads a bench photo, the instructor signs the sump off with it
   await page.getByRole('link', { name: 'Small Engines I', exact: true }).click();
   await page.getByRole('link', { name: 'Bench sign-offs' }).click();
   await expect(page.getByRole('heading', { name: 'Bench sign-offs' })).toBeVisible();
-  await hydrated(page);
+  await islandsReady(page);
   const form = page.getByTestId('sign-off-form');
   await form.getByLabel('Learner').selectOption({ label: 'Ava Lindqvist' });
   await form.getByLabel('Procedure').selectOption({ label: SUMP });
