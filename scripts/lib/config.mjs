@@ -73,6 +73,9 @@ export function appEnv(mode) {
     // The S3 stand-in's fixed development keys; a deployment sets its own.
     S3_ACCESS_KEY_ID: 'S3RVER',
     S3_SECRET_ACCESS_KEY: 'S3RVER',
+    // The pinned S3 SDK warns on every start that its releases after January 2027 need Node 22; the
+    // project runs on Node 20 on purpose (README, Known limits), so the warning is only noise in the logs.
+    AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
   };
 }
 
