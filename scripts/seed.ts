@@ -10,6 +10,10 @@ import { DEMO_PROCEDURES } from '../models/procedures';
 import { DEMO_CLASS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_SCHOOL } from './demo-people';
 import { DEMO_SIGN_OFF_LEARNER, seedSignOffs } from './seed-sign-offs';
 import { DEMO_DRILLS, demoDueAt } from './demo-drills';
+import { DEMO_ATTEMPT_PLAN, demoClientId, slipAnswer } from './demo-attempts';
+import { correctAnswer } from '../src/lib/procedure/reference-answers';
+import { scoreAttempt } from '../src/lib/scoring';
+import { attemptRow } from '../src/lib/server/attempt-row';
 
 if (process.env.NODE_ENV === 'production') {
   console.error('Refusing to seed demo accounts with NODE_ENV=production.');
@@ -22,7 +26,7 @@ if (!process.env.DATABASE_URL) {
 
 const pool = new pg.Pool({ connectionString: process.env.DATABASE_URL });
 const db = drizzle(pool, { schema });
-const { schools, users, classes, classMembers, drills, procedures, procedureVersions } = schema;
+const { schools, users, classes, classMembers, drills, procedures, procedureVersions, attempts } = schema;
 
 async function main() {
   await db.insert(schools).values({ name: DEMO_SCHOOL }).onConflictDoNothing();
@@ -73,6 +77,36 @@ async function main() {
   });
   console.log(`  ${signedOff}`);
   await seedDrills(cls!.id, idOf(DEMO_CLASS.instructors[0]!));
+  await seedAttempts(cls!.id, idOf);
+}
+
+/** The class's work on the sump drill (scripts/demo-attempts.ts), spread over the last few days. */
+async function seedAttempts(classId: string, idOf: (email: string) => string) {
+  const [drill] = await db
+    .select({ id: drills.id, versionId: procedureVersions.id, document: procedureVersions.document })
+    .from(drills)
+    .innerJoin(procedureVersions, eq(procedureVersions.id, drills.procedureVersionId))
+    .innerJoin(procedures, eq(procedures.id, procedureVersions.procedureId))
+    .where(and(eq(drills.classId, classId), eq(procedures.slug, 'wren-160-sump')));
+  if (!drill) return;
+  const now = Date.now();
+  let added = 0;
+  for (const [email, plan] of Object.entries(DEMO_ATTEMPT_PLAN)) {
+    for (const [i, [stage, kind]] of plan.entries()) {
+      const answer = kind === 'right' ? correctAnswer(drill.document, stage) : slipAnswer(drill.document, stage);
+      const scored = scoreAttempt(drill.document, stage, answer);
+      if (!scored.ok) throw new Error(`demo attempt ${email} ${stage}: ${scored.issues[0]?.message}`);
+      const input = { procedure: 'wren-160-sump', stage, answer: answer as object, clientId: demoClientId(email, i), drillId: drill.id };
+      const createdAt = new Date(now - (3 * 24 - i * 2) * 60 * 60 * 1000);
+      const inserted = await db
+        .insert(attempts)
+        .values({ ...attemptRow(idOf(email), input, drill.versionId, scored.score), createdAt })
+        .onConflictDoNothing({ target: [attempts.userId, attempts.clientId] })
+        .returning({ id: attempts.id });
+      added += inserted.length;
+    }
+  }
+  console.log(`  ${added ? `${added} demo attempts on the sump drill` : 'demo attempts already there'}`);
 }
 
 /** Each demo drill once per class: a procedure that already has a drill there (any version) is left alone. */

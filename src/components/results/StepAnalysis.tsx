@@ -24,7 +24,11 @@ function readD(d: number | null): string {
 }
 
 export default function StepAnalysis({ results }: { results: Pick<ClassResults, 'drills' | 'stepAnalysis' | 'groups'> }) {
-  const [drillId, setDrillId] = useState(results.drills[0]?.id ?? '');
+  // Open on the drill with the most learners to analyse: the first in due order may have none yet.
+  const [drillId, setDrillId] = useState(() => {
+    const busiest = [...results.stepAnalysis].sort((a, b) => b.counted - a.counted)[0];
+    return busiest && busiest.counted > 0 ? busiest.drillId : (results.drills[0]?.id ?? '');
+  });
   const [groups, setGroups] = useState<GroupSplit>(results.groups);
   const base = results.stepAnalysis.find((a) => a.drillId === drillId);
   const analysis: Analysis | undefined = useMemo(() => (base ? regroupAnalysis(base, groups) : undefined), [base, groups]);
