@@ -14,6 +14,7 @@ import { DEMO_ATTEMPT_PLAN, demoClientId, slipAnswer } from './demo-attempts';
 import { correctAnswer } from '../src/lib/procedure/reference-answers';
 import { scoreAttempt } from '../src/lib/scoring';
 import { attemptRow } from '../src/lib/server/attempt-row';
+import { queueMisses } from '../src/lib/server/rework-queue';
 
 if (process.env.NODE_ENV === 'production') {
   console.error('Refusing to seed demo accounts with NODE_ENV=production.');
@@ -104,6 +105,10 @@ async function seedAttempts(classId: string, idOf: (email: string) => string) {
         .onConflictDoNothing({ target: [attempts.userId, attempts.clientId] })
         .returning({ id: attempts.id });
       added += inserted.length;
+      // Their misses wait in Rework, queued by the same code as a learner's own.
+      for (const { id } of inserted) {
+        await queueMisses(db, { userId: idOf(email), attemptId: id, procedureVersionId: drill.versionId, document: drill.document, stage, results: scored.score.results, at: createdAt });
+      }
     }
   }
   console.log(`  ${added ? `${added} demo attempts on the sump drill` : 'demo attempts already there'}`);
