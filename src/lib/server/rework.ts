@@ -1,4 +1,4 @@
-import { asc, eq, inArray } from 'drizzle-orm';
+import { asc, eq, inArray, sql } from 'drizzle-orm';
 import { db } from './db';
 import { procedures, procedureVersions, reworkItems } from '../../db/schema';
 import type { Procedure, Stage } from '../procedure/schema';
