@@ -48,7 +48,8 @@ smtp.on('error', (err) => console.error('smtp:', err.message));
 const http = createServer((req, res) => {
   const url = new URL(req.url ?? '/', 'http://localhost');
   const send = (status, body) => {
-    res.writeHead(status, { 'content-type': 'application/json' });
+    // No keep-alive: a client reusing a connection just as the server times it out gets "other side closed".
+    res.writeHead(status, { 'content-type': 'application/json', connection: 'close' });
     res.end(JSON.stringify(body));
   };
   if (url.pathname === '/health') return send(200, { ok: true });
