@@ -9,6 +9,7 @@ import { findVersion, publishProcedure } from '../src/lib/server/procedure-store
 import { DEMO_PROCEDURES } from '../models/procedures';
 import { DEMO_CLASS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_SCHOOL } from './demo-people';
 import { DEMO_SIGN_OFF_LEARNER, seedSignOffs } from './seed-sign-offs';
+import { seedReferenceFiles } from './seed-reference-files';
 import { DEMO_DRILLS, demoDueAt } from './demo-drills';
 import { DEMO_ATTEMPT_PLAN, demoClientId, slipAnswer } from './demo-attempts';
 import { correctAnswer } from '../src/lib/procedure/reference-answers';
@@ -77,6 +78,8 @@ async function main() {
     instructorId: idOf(DEMO_CLASS.instructors[0]!),
   });
   console.log(`  ${signedOff}`);
+  const admin = DEMO_PEOPLE.find((p) => p.role === 'admin')!;
+  console.log(`  ${await seedReferenceFiles(db, idOf(admin.email))}`);
   await seedDrills(cls!.id, idOf(DEMO_CLASS.instructors[0]!));
   await seedAttempts(cls!.id, idOf);
 }

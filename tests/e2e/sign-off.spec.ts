@@ -31,9 +31,9 @@ test('a learner uploads a bench photo, the instructor signs the sump off with it
   await expect(sump.getByRole('status')).toContainText('Photo uploaded');
   const tile = sump.getByRole('img', { name: photoName });
   await expect(tile).toBeVisible();
-  // The picture really came back from the server (a broken image has no natural width). It loads lazily,
-  // and other procedures in the list may push it below the fold.
+  // Tiles load lazily: with many procedures listed above the sump, the picture only loads once scrolled to.
   await tile.scrollIntoViewIfNeeded();
+  // The picture really came back from the server (a broken image has no natural width).
   await expect.poll(() => tile.evaluate((img: HTMLImageElement) => img.naturalWidth)).toBe(160);
   await shot(page, 'bench-learner-uploaded');
   await signOut(page);

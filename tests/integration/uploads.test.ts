@@ -42,7 +42,7 @@ describe('POST /api/uploads then GET /api/uploads/:id', () => {
     expect(back.status).toBe(200);
     expect(Buffer.from(back.bytes).equals(Buffer.from(bytes))).toBe(true);
     expect(back.headers.get('content-type')).toBe('image/png');
-    expect(back.headers.get('content-disposition')).toBe('inline');
+    expect(back.headers.get('content-disposition')).toBe('inline; filename="my sump (final).png"');
     expect(back.headers.get('x-content-type-options')).toBe('nosniff');
     expect(back.headers.get('content-security-policy')).toBe('sandbox');
     expect(back.headers.get('cache-control')).toMatch(/^private\b/);
@@ -126,10 +126,10 @@ describe('POST /api/uploads then GET /api/uploads/:id', () => {
     expect(unknown.body.fields.procedure).toEqual(['No such procedure']);
 
     const other = photoForm(pngBytes());
-    other.set('purpose', 'procedure-reference');
+    other.set('purpose', 'avatar');
     const purpose = await world.owner.client.postForm('/api/uploads', other);
     expect(purpose.status).toBe(400);
-    expect(purpose.body.fields.purpose).toEqual(['purpose must be "bench-photo"']);
+    expect(purpose.body.fields.purpose).toEqual(['purpose must be "bench-photo" or "procedure-reference"']);
 
     const json = await world.owner.client.post('/api/uploads', { file: 'x' });
     expect(json.status).toBe(400);

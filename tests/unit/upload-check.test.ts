@@ -1,7 +1,10 @@
 import { fileTypeFromBuffer } from 'file-type';
 import { describe, expect, it } from 'vitest';
+import { demoSpecCard, encodePdf } from '../../scripts/demo-pdf';
 import { encodePng } from '../../scripts/demo-photo';
-import { BENCH_PHOTO_RULE, checkUpload, cleanFileName, detectedType, formatBytes, MB, type UploadRule } from '../../src/lib/uploads/check';
+import {
+  BENCH_PHOTO_RULE, checkUpload, cleanFileName, detectedType, formatBytes, MB, PROCEDURE_REFERENCE_RULE, type UploadRule,
+} from '../../src/lib/uploads/check';
 
 // Small files whose first bytes follow each format's specification, so file-type (what the server
 // runs) and our rule are tested together on what a real camera or editor writes.
@@ -116,12 +119,61 @@ describe('rules per purpose', () => {
   });
 });
 
+describe('reference files: bench photo types plus PDF', () => {
+  const ref = (bytes: Uint8Array, name: string) => check(bytes, name, PROCEDURE_REFERENCE_RULE);
+  // A PDF file begins with the header "%PDF-" and a version (ISO 32000-1:2008 §7.5.2, file header).
+  const minimalPdf = new Uint8Array(ascii('%PDF-1.4\n%\xe2\xe3\xcf\xd3\n1 0 obj\n<< /Type /Catalog >>\nendobj\n%%EOF\n'));
+
+  it('accepts a PDF, a generated spec card, and every photo a bench photo may be', async () => {
+    expect(await ref(minimalPdf, 'spec.pdf')).toEqual({ ok: true, contentType: 'application/pdf' });
+    expect(await ref(demoSpecCard(), 'wren-160-sump-spec-card.pdf')).toEqual({ ok: true, contentType: 'application/pdf' });
+    expect(await ref(encodePdf([{ text: 'x' }], 't'), 'no-extension')).toEqual({ ok: true, contentType: 'application/pdf' });
+    expect(await ref(jpeg, 'bench.jpg')).toEqual({ ok: true, contentType: 'image/jpeg' });
+    expect(await ref(png, 'bench.png')).toEqual({ ok: true, contentType: 'image/png' });
+    expect(await ref(webp, 'bench.webp')).toEqual({ ok: true, contentType: 'image/webp' });
+    expect(await ref(ftyp('heic', 'mif1', 'heic'), 'IMG_0042.HEIC')).toEqual({ ok: true, contentType: 'image/heic' });
+  });
+
+  it('goes by the bytes: a PNG named spec.pdf is kept as a PNG', async () => {
+    expect(await ref(png, 'spec.pdf')).toEqual({ ok: true, contentType: 'image/png' });
+  });
+
+  it('refuses a text file named spec.pdf, naming what it really is', async () => {
+    const result = await ref(new TextEncoder().encode('Torque 11 N·m, two passes.\n'), 'spec.pdf');
+    expect(result).toEqual({
+      ok: false,
+      reason: 'wrong-type',
+      message: "The file's content is plain text (text/plain) although its name ends in .pdf. Upload JPEG, PNG, WebP, HEIC or PDF.",
+    });
+  });
+
+  it('refuses SVG (it can carry script) and PostScript, even named .pdf', async () => {
+    const svg = await ref(new TextEncoder().encode('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'), 'spec.pdf');
+    expect(svg.ok ? '' : svg.message).toContain('an SVG drawing (image/svg+xml), which is not accepted');
+    // PostScript begins "%!PS" (Adobe PostScript Language Reference, 3rd ed., Document Structuring Conventions header), not "%PDF-".
+    const ps = await ref(new Uint8Array(ascii('%!PS-Adobe-3.0\n%%Pages: 1\nshowpage\n')), 'spec.pdf');
+    expect(ps).toMatchObject({ ok: false, reason: 'wrong-type' });
+  });
+
+  it('has the bench photo size limit: exactly 10 MB is taken, one byte more refused', () => {
+    const pdf = { mime: 'application/pdf', ext: 'pdf' };
+    expect(checkUpload({ detected: pdf, name: 'a.pdf', size: 10 * MB }, PROCEDURE_REFERENCE_RULE).ok).toBe(true);
+    expect(checkUpload({ detected: pdf, name: 'a.pdf', size: 10 * MB + 1 }, PROCEDURE_REFERENCE_RULE)).toMatchObject({ ok: false, reason: 'too-large' });
+    expect(checkUpload({ detected: null, name: 'a.pdf', size: 0 }, PROCEDURE_REFERENCE_RULE)).toMatchObject({ ok: false, reason: 'empty' });
+  });
+
+  it('keeps PDF away from bench photos', async () => {
+    expect(await check(minimalPdf, 'spec.pdf')).toMatchObject({ ok: false, reason: 'wrong-type' });
+  });
+});
+
 describe('names and sizes in words', () => {
   it('keeps only the last path segment, without control characters', () => {
     expect(cleanFileName('C:\\Users\\ava\\Pictures\\sump.jpg')).toBe('sump.jpg');
     expect(cleanFileName('../../etc/passwd')).toBe('passwd');
     expect(cleanFileName('bad\u0000\nname.png')).toBe('badname.png');
     expect(cleanFileName('')).toBe('photo');
+    expect(cleanFileName('/', 'file')).toBe('file');
     expect(cleanFileName('x'.repeat(300) + '.jpg')).toHaveLength(200);
   });
 

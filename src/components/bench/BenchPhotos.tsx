@@ -2,7 +2,7 @@ import { useId, useRef, useState } from 'react';
 import { checkSize, formatBytes, type UploadRule } from '../../lib/uploads/check';
 import type { BenchPhotoJson } from '../../lib/uploads/views';
 import { PhotoTile } from './PhotoTile';
-import { uploadPhoto } from './upload-photo';
+import { uploadFile } from '../uploads/upload-file';
 
 interface Props {
   procedure: string;
@@ -34,12 +34,12 @@ export default function BenchPhotos({ procedure, procedureTitle, initial, rule }
         continue;
       }
       setStatus({ kind: 'uploading', name: file.name, index: index + 1, total: files.length, percent: 0 });
-      const result = await uploadPhoto(file, procedure, (f) =>
+      const result = await uploadFile<BenchPhotoJson>(file, { purpose: 'bench-photo', procedure }, (f) =>
         setStatus({ kind: 'uploading', name: file.name, index: index + 1, total: files.length, percent: Math.round(f * 100) }),
       );
       if (result.ok) {
         added += 1;
-        setPhotos((list) => [result.photo, ...list]);
+        setPhotos((list) => [result.body, ...list]);
       } else {
         problems.push(`${file.name}: ${result.message}`);
       }

@@ -1,13 +1,47 @@
 import { randomUUID } from 'node:crypto';
-import { and, count, desc, eq, inArray, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, sql } from 'drizzle-orm';
 import { fileTypeFromBuffer } from 'file-type';
 import { procedures, signOffPhotos, uploads } from '../../db/schema';
 import type { SessionUser } from '../roles';
-import { detectedType, type DetectedType } from '../uploads/check';
-import type { BenchPhotoJson } from '../uploads/views';
+import type { UploadPurpose } from '../schemas/uploads';
+import {
+  BENCH_PHOTO_RULE, checkUpload, detectedType, MAX_BENCH_PHOTOS_PER_PROCEDURE, MAX_REFERENCE_FILES_PER_PROCEDURE,
+  PROCEDURE_REFERENCE_RULE, type DetectedType, type UploadRule,
+} from '../uploads/check';
+import type { BenchPhotoJson, ReferenceFileJson } from '../uploads/views';
 import { teachesLearner } from './attempts';
 import { db } from './db';
 import { storage } from './storage';
+
+type Transaction = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+/** What one purpose accepts, where its objects are kept, and how many of them a procedure may have. */
+export interface UploadKind {
+  rule: UploadRule;
+  /** Storage keys are `<keyPrefix>/<random uuid>`: never a name the uploader chose. */
+  keyPrefix: string;
+  max: number;
+  /** Counted per uploader and procedure (each learner's own photos), or per procedure whoever uploaded. */
+  perOwner: boolean;
+  full: string;
+}
+
+export const UPLOAD_KINDS: Record<UploadPurpose, UploadKind> = {
+  'bench-photo': {
+    rule: BENCH_PHOTO_RULE,
+    keyPrefix: 'bench-photos',
+    max: MAX_BENCH_PHOTOS_PER_PROCEDURE,
+    perOwner: true,
+    full: `You already keep ${MAX_BENCH_PHOTOS_PER_PROCEDURE} photos of this procedure; delete one that is not on a sign-off first`,
+  },
+  'procedure-reference': {
+    rule: PROCEDURE_REFERENCE_RULE,
+    keyPrefix: 'procedure-files',
+    max: MAX_REFERENCE_FILES_PER_PROCEDURE,
+    perOwner: false,
+    full: `This procedure already has ${MAX_REFERENCE_FILES_PER_PROCEDURE} reference files; delete one first`,
+  },
+};
 
 export interface UploadView {
   id: string;
@@ -22,6 +56,14 @@ export interface UploadView {
   attached: boolean;
 }
 
+/** What the server alone needs to decide who may read or delete an upload. */
+export interface StoredUpload extends UploadView {
+  storageKey: string;
+  purpose: UploadPurpose;
+  /** Who created the upload's procedure: with admins, the people who may manage its reference files. */
+  procedureCreatedBy: string | null;
+}
+
 /** What the JSON API shows of an upload (the storage key never leaves the server). */
 export function uploadJson(u: UploadView): BenchPhotoJson {
   return {
@@ -32,6 +74,18 @@ export function uploadJson(u: UploadView): BenchPhotoJson {
     createdAt: u.createdAt.toISOString(),
     procedure: u.procedure,
     attached: u.attached,
+  };
+}
+
+/** A reference file as listed to anyone signed in. */
+export function referenceFileJson(u: UploadView): ReferenceFileJson {
+  return {
+    id: u.id,
+    procedure: u.procedure ?? '',
+    originalName: u.originalName,
+    contentType: u.contentType,
+    sizeBytes: u.sizeBytes,
+    createdAt: u.createdAt.toISOString(),
   };
 }
 
@@ -53,38 +107,93 @@ export async function detectType(bytes: Uint8Array): Promise<DetectedType | null
   return detectedType(await fileTypeFromBuffer(bytes), bytes);
 }
 
+export type SaveOutcome =
+  | { ok: true; upload: UploadView }
+  | { ok: false; reason: 'empty' | 'too-large' | 'wrong-type' | 'full'; message: string };
+
 /**
- * Stores checked bytes under a random key (never the learner's file name) and records them.
- * The object is written first; should the row fail, the object is removed again.
+ * The one way a file is kept, whatever its purpose: its real type is read from its bytes and judged by the
+ * purpose's rule, then it is stored under a random key with the purpose's prefix (never the uploader's file
+ * name) and recorded. The object is written first; if the row cannot be written, or the cap was reached
+ * meanwhile, the object is removed again.
  */
-export async function saveBenchPhoto(
-  ownerId: string,
-  procedure: { id: string; slug: string },
-  bytes: Uint8Array,
-  contentType: string,
-  originalName: string,
-): Promise<UploadView> {
-  const storageKey = `bench-photos/${randomUUID()}`;
-  await storage.put(storageKey, bytes, contentType);
+export async function saveUpload(input: {
+  purpose: UploadPurpose;
+  ownerId: string;
+  procedure: { id: string; slug: string };
+  bytes: Uint8Array;
+  /** The name the browser sent, already cleaned for display. */
+  originalName: string;
+}): Promise<SaveOutcome> {
+  const { purpose, ownerId, procedure, bytes, originalName } = input;
+  const kind = UPLOAD_KINDS[purpose];
+  const checked = checkUpload({ detected: await detectType(bytes), name: originalName, size: bytes.byteLength }, kind.rule);
+  if (!checked.ok) return checked;
+
+  const storageKey = `${kind.keyPrefix}/${randomUUID()}`;
+  await storage.put(storageKey, bytes, checked.contentType);
+  const forget = () => storage.remove(storageKey).catch(() => undefined);
+  let row: { id: string; createdAt: Date } | null;
   try {
-    const [row] = await db
-      .insert(uploads)
-      .values({ ownerId, purpose: 'bench-photo', procedureId: procedure.id, storageKey, contentType, sizeBytes: bytes.byteLength, originalName })
-      .returning({ id: uploads.id, createdAt: uploads.createdAt });
-    return { id: row!.id, ownerId, originalName, contentType, sizeBytes: bytes.byteLength, createdAt: row!.createdAt, procedure: procedure.slug, attached: false };
+    row = await db.transaction(async (tx) => {
+      // Uploads to one procedure take turns here, so two at once cannot both take the last place under the cap.
+      await tx.select({ id: procedures.id }).from(procedures).where(eq(procedures.id, procedure.id)).for('no key update');
+      if ((await countUploads(purpose, procedure.id, ownerId, tx)) >= kind.max) return null;
+      const [inserted] = await tx
+        .insert(uploads)
+        .values({ ownerId, purpose, procedureId: procedure.id, storageKey, contentType: checked.contentType, sizeBytes: bytes.byteLength, originalName })
+        .returning({ id: uploads.id, createdAt: uploads.createdAt });
+      return inserted!;
+    });
   } catch (err) {
-    await storage.remove(storageKey).catch(() => undefined);
+    await forget();
     throw err;
   }
+  if (!row) {
+    await forget();
+    return { ok: false, reason: 'full', message: kind.full };
+  }
+  return {
+    ok: true,
+    upload: { id: row.id, ownerId, originalName, contentType: checked.contentType, sizeBytes: bytes.byteLength, createdAt: row.createdAt, procedure: procedure.slug, attached: false },
+  };
 }
 
-/** How many bench photos a learner keeps of one procedure (each learner has a cap per procedure). */
-export async function countBenchPhotos(ownerId: string, procedureId: string): Promise<number> {
-  const [row] = await db
+/** How many uploads of a purpose a procedure has: per uploader for bench photos, in all for reference files. */
+export async function countUploads(purpose: UploadPurpose, procedureId: string, ownerId: string, tx: Transaction | typeof db = db): Promise<number> {
+  const [row] = await tx
     .select({ n: count() })
     .from(uploads)
-    .where(and(eq(uploads.ownerId, ownerId), eq(uploads.purpose, 'bench-photo'), eq(uploads.procedureId, procedureId)));
+    .where(
+      and(
+        eq(uploads.purpose, purpose),
+        eq(uploads.procedureId, procedureId),
+        UPLOAD_KINDS[purpose].perOwner ? eq(uploads.ownerId, ownerId) : undefined,
+      ),
+    );
   return row?.n ?? 0;
+}
+
+/** A procedure's reference files in the order they were attached. */
+export async function listReferenceFiles(procedureId: string): Promise<UploadView[]> {
+  return db
+    .select(viewColumns)
+    .from(uploads)
+    .leftJoin(procedures, eq(procedures.id, uploads.procedureId))
+    .where(and(eq(uploads.purpose, 'procedure-reference'), eq(uploads.procedureId, procedureId)))
+    .orderBy(asc(uploads.createdAt), asc(uploads.id));
+}
+
+/** How many reference files each of the given procedures has, by slug (procedures without any are absent). */
+export async function referenceFileCounts(slugs: string[]): Promise<Map<string, number>> {
+  if (slugs.length === 0) return new Map();
+  const rows = await db
+    .select({ slug: procedures.slug, n: count() })
+    .from(uploads)
+    .innerJoin(procedures, eq(procedures.id, uploads.procedureId))
+    .where(and(eq(uploads.purpose, 'procedure-reference'), inArray(procedures.slug, slugs)))
+    .groupBy(procedures.slug);
+  return new Map(rows.map((r) => [r.slug, r.n]));
 }
 
 /** A learner's bench photos, newest first; of one procedure when procedureId is given. */
@@ -104,16 +213,18 @@ export async function listBenchPhotos(ownerId: string, procedureId?: string): Pr
 }
 
 /**
- * An upload its viewer may see: the owner's own, any for an admin, or one whose owner is a learner
+ * An upload its viewer may see. A procedure's reference files: anyone signed in (every signed-in user may
+ * open every procedure). Bench photos: the owner's own, any for an admin, or one whose owner is a learner
  * in a class the viewer teaches. Anyone else gets null, answered as 404 so ids reveal nothing.
  */
-export async function uploadForViewer(viewer: SessionUser, id: string): Promise<(UploadView & { storageKey: string }) | null> {
+export async function uploadForViewer(viewer: SessionUser, id: string): Promise<StoredUpload | null> {
   const [row] = await db
-    .select({ ...viewColumns, storageKey: uploads.storageKey })
+    .select({ ...viewColumns, storageKey: uploads.storageKey, purpose: uploads.purpose, procedureCreatedBy: procedures.createdBy })
     .from(uploads)
     .leftJoin(procedures, eq(procedures.id, uploads.procedureId))
     .where(eq(uploads.id, id));
   if (!row) return null;
+  if (row.purpose === 'procedure-reference') return row;
   if (row.ownerId === viewer.id || viewer.role === 'admin') return row;
   if (viewer.role !== 'instructor') return null;
   return (await teachesLearner(viewer.id, row.ownerId)) ? row : null;
@@ -127,15 +238,17 @@ export function readUpload(storageKey: string) {
 export type DeleteResult = 'deleted' | 'not-found' | 'attached';
 
 /**
- * Deletes the owner's upload unless a sign-off uses it. The row is locked first, so a sign-off being
- * recorded at the same moment either sees the photo gone or keeps it (never a half-attached photo).
+ * Deletes an upload unless a sign-off uses it; with `ownerId`, only that person's. The caller has decided
+ * who may (the owner of a bench photo; whoever may edit the procedure of a reference file). The row is
+ * locked first, so a sign-off being recorded at the same moment either sees the photo gone or keeps it
+ * (never a half-attached photo).
  */
-export async function deleteOwnUpload(ownerId: string, id: string): Promise<DeleteResult> {
+export async function deleteUpload(id: string, ownerId?: string): Promise<DeleteResult> {
   const outcome = await db.transaction(async (tx) => {
     const [row] = await tx
       .select({ storageKey: uploads.storageKey })
       .from(uploads)
-      .where(and(eq(uploads.id, id), eq(uploads.ownerId, ownerId)))
+      .where(and(eq(uploads.id, id), ownerId === undefined ? undefined : eq(uploads.ownerId, ownerId)))
       .for('update');
     if (!row) return 'not-found' as const;
     const [inUse] = await tx.select({ one: sql`1` }).from(signOffPhotos).where(eq(signOffPhotos.uploadId, id)).limit(1);
@@ -151,7 +264,7 @@ export async function deleteOwnUpload(ownerId: string, id: string): Promise<Dele
 
 /** Of the given upload ids, those that are the learner's bench photos of the procedure (locked against deletion). */
 export async function benchPhotosOf(
-  tx: Parameters<Parameters<typeof db.transaction>[0]>[0],
+  tx: Transaction,
   ownerId: string,
   procedureId: string,
   ids: string[],

@@ -48,6 +48,20 @@ export const BENCH_PHOTO_RULE: UploadRule = {
   accept: 'image/jpeg,image/png,image/webp,image/heic,image/heif,.jpg,.jpeg,.png,.webp,.heic,.heif',
 };
 
+/** PDF: a spec sheet or a page of the service data an instructor may share. */
+const PDF_TYPE: AcceptedType = { mime: 'application/pdf', label: 'PDF' };
+
+/** How many reference files one procedure keeps: a spec sheet and a few photos, not a document store. */
+export const MAX_REFERENCE_FILES_PER_PROCEDURE = 20;
+
+/** A file attached to a procedure by someone who may edit it: photos as for the bench, or a PDF. */
+export const PROCEDURE_REFERENCE_RULE: UploadRule = {
+  maxBytes: 10 * MB,
+  types: [...IMAGE_TYPES, PDF_TYPE],
+  formats: 'JPEG, PNG, WebP, HEIC or PDF',
+  accept: 'image/*,application/pdf,.pdf,.heic,.heif',
+};
+
 export interface UploadCandidate {
   /** What the bytes are, or null when nothing was recognised. */
   detected: DetectedType | null;
@@ -123,13 +137,13 @@ function extensionOf(name: string): string | null {
 
 /**
  * The name to show beside a stored file: the last path segment, without control characters,
- * at most 200 characters. It is never part of a storage key.
+ * at most 200 characters (`fallback` when nothing is left). It is never part of a storage key.
  */
-export function cleanFileName(name: string): string {
+export function cleanFileName(name: string, fallback = 'photo'): string {
   const base = name.split(/[\\/]/).pop() ?? '';
   // eslint-disable-next-line no-control-regex
   const cleaned = base.replace(/[\u0000-\u001f\u007f]/g, '').trim().slice(0, 200);
-  return cleaned || 'photo';
+  return cleaned || fallback;
 }
 
 /** 10485760 → "10 MB"; 2500000 → "2.4 MB"; small files in KB. */

@@ -13,6 +13,17 @@ export interface BenchPhotoJson {
   attached: boolean;
 }
 
+/** A file attached to a procedure (a spec sheet, a reference photo), as listed to anyone signed in. */
+export interface ReferenceFileJson {
+  id: string;
+  /** The procedure's slug. */
+  procedure: string;
+  originalName: string;
+  contentType: string;
+  sizeBytes: number;
+  createdAt: string;
+}
+
 export interface SignOffPhotoJson {
   id: string;
   originalName: string;
@@ -40,3 +51,6 @@ export const uploadUrl = (id: string) => `/api/uploads/${id}`;
 
 /** Browsers other than Safari cannot draw HEIC/HEIF, so those are offered as a link instead of a picture. */
 export const browserCanShow = (contentType: string) => !contentType.startsWith('image/hei');
+
+/** How a reference file is labelled in a list: what a person expects to open. */
+export const fileKindLabel = (contentType: string) => (contentType === 'application/pdf' ? 'PDF' : 'Photo');

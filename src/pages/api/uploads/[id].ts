@@ -1,14 +1,17 @@
 import type { APIRoute } from 'astro';
 import { z } from 'zod';
+import { inlineDisposition } from '../../../lib/uploads/disposition';
 import { requireRole } from '../../../lib/server/guard';
 import { jsonError } from '../../../lib/server/http';
-import { deleteOwnUpload, readUpload, uploadForViewer } from '../../../lib/server/uploads';
+import { canEditProcedure } from '../../../lib/server/procedure-drafts';
+import { deleteUpload, readUpload, uploadForViewer } from '../../../lib/server/uploads';
 
 const uuid = z.string().uuid();
 
 /**
- * The file's bytes, for its owner, instructors of a class the owner is a learner in, and admins;
- * anyone else gets 404. Served as the type found in its bytes, never sniffed again by the browser.
+ * The file's bytes. A procedure's reference file: anyone signed in. A bench photo: its owner, instructors
+ * of a class the owner is a learner in, and admins; anyone else gets 404. Served as the type found in its
+ * bytes, never sniffed again by the browser, under the name it was uploaded with.
  */
 export const GET: APIRoute = async ({ locals, params }) => {
   const gate = requireRole(locals);
@@ -25,7 +28,7 @@ export const GET: APIRoute = async ({ locals, params }) => {
     headers: {
       'content-type': upload.contentType,
       'content-length': String(object.body.byteLength),
-      'content-disposition': 'inline',
+      'content-disposition': inlineDisposition(upload.originalName),
       'x-content-type-options': 'nosniff',
       // Opened on its own, the file runs nothing, whatever it might contain.
       'content-security-policy': 'sandbox',
@@ -35,7 +38,10 @@ export const GET: APIRoute = async ({ locals, params }) => {
   });
 };
 
-/** The owner deletes a photo no sign-off uses yet: 204; 409 once attached; 403 for others who may see it. */
+/**
+ * A bench photo: its owner deletes it while no sign-off uses it (409 after); others who may see it get 403.
+ * A reference file: anyone who may edit its procedure (its creator, admins), whoever uploaded it; others 403.
+ */
 export const DELETE: APIRoute = async ({ locals, params }) => {
   const gate = requireRole(locals);
   if (!gate.ok) return gate.response;
@@ -43,8 +49,16 @@ export const DELETE: APIRoute = async ({ locals, params }) => {
   if (!id.success) return jsonError(404, 'No such file');
   const upload = await uploadForViewer(gate.user, id.data);
   if (!upload) return jsonError(404, 'No such file');
-  if (upload.ownerId !== gate.user.id) return jsonError(403, 'Only the learner who uploaded a photo can delete it');
-  const result = await deleteOwnUpload(gate.user.id, id.data);
+  let result;
+  if (upload.purpose === 'procedure-reference') {
+    if (!canEditProcedure(gate.user, upload.procedureCreatedBy)) {
+      return jsonError(403, 'Only the instructor who created this procedure, or an admin, can remove its files');
+    }
+    result = await deleteUpload(id.data);
+  } else {
+    if (upload.ownerId !== gate.user.id) return jsonError(403, 'Only the learner who uploaded a photo can delete it');
+    result = await deleteUpload(id.data, gate.user.id);
+  }
   if (result === 'not-found') return jsonError(404, 'No such file');
   if (result === 'attached') return jsonError(409, 'This photo is part of a sign-off and stays with it');
   return new Response(null, { status: 204 });
