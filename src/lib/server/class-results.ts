@@ -1,8 +1,8 @@
 import { and, asc, desc, eq, inArray } from 'drizzle-orm';
-import { z } from 'zod';
 import { db } from './db';
-import { attempts, classes, classMembers, drills, procedures, procedureVersions, signOffs, users } from '../../db/schema';
-import { isClassInstructor } from './classes';
+import { attempts, classes, drills, procedures, procedureVersions, signOffs, users } from '../../db/schema';
+import { mayRunClass, staffClass, type StaffRefusal } from './class-access';
+import { learnersOf } from './class-members';
 import { attemptForViewer } from './attempts';
 import { jsonError } from './http';
 import { buildClassResults, type ClassResults } from '../results/class-results';
@@ -16,14 +16,13 @@ import type { StepResult } from '../scoring/types';
 
 export type ResultsAccess = { ok: true; classId: string; className: string } | { ok: false; status: 400 | 403 | 404 };
 
+const REFUSALS: Record<StaffRefusal, 400 | 403 | 404> = { 'malformed-id': 400, 'no-class': 404, 'not-staff': 403, 'not-taught': 403 };
+
 /** Who may see a class's results: its instructors and admins. A malformed id is 400, an unknown one 404. */
 export async function resultsAccess(user: SessionUser, rawId: string | undefined): Promise<ResultsAccess> {
-  const id = z.string().uuid().safeParse(rawId);
-  if (!id.success) return { ok: false, status: 400 };
-  const [cls] = await db.select({ id: classes.id, name: classes.name }).from(classes).where(eq(classes.id, id.data));
-  if (!cls) return { ok: false, status: 404 };
-  if (user.role !== 'admin' && !(user.role === 'instructor' && (await isClassInstructor(cls.id, user.id)))) return { ok: false, status: 403 };
-  return { ok: true, classId: cls.id, className: cls.name };
+  const access = await staffClass(user, rawId);
+  if (!access.ok) return { ok: false, status: REFUSALS[access.why] };
+  return { ok: true, classId: access.cls.id, className: access.cls.name };
 }
 
 const ACCESS_ERRORS = {
@@ -39,12 +38,7 @@ export async function classResults(classId: string, groups: GroupSplit, now = ne
   const [cls] = await db.select({ id: classes.id, name: classes.name }).from(classes).where(eq(classes.id, classId));
   if (!cls) return null;
 
-  const learners = await db
-    .select({ id: users.id, name: users.name, email: users.email })
-    .from(classMembers)
-    .innerJoin(users, eq(users.id, classMembers.userId))
-    .where(and(eq(classMembers.classId, classId), eq(classMembers.role, 'learner')))
-    .orderBy(asc(users.name), asc(users.email));
+  const learners = await learnersOf(db, classId);
 
   const drillRows = await db
     .select({
@@ -174,7 +168,7 @@ export async function attemptForReview(viewer: SessionUser, attemptId: string): 
 
   let drill: ReviewedAttempt['drill'] = null;
   if (row.drillId && row.classId && row.className) {
-    const mayLink = viewer.role === 'admin' || (await isClassInstructor(row.classId, viewer.id));
+    const mayLink = await mayRunClass(viewer, row.classId);
     if (mayLink) drill = { id: row.drillId, classId: row.classId, className: row.className };
   }
 

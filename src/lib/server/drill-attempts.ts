@@ -1,10 +1,11 @@
 import { and, eq } from 'drizzle-orm';
 import { db, type Db } from './db';
-import { attempts, classMembers, drills, procedures, procedureVersions } from '../../db/schema';
+import { attempts, drills, procedures, procedureVersions } from '../../db/schema';
 import { answersHidden } from '../drills/answers';
 import type { DrillAttempt, DrillProgress } from '../drills/progress';
 import type { Stage } from '../procedure/schema';
 import type { SessionUser } from '../roles';
+import { membership } from './class-members';
 import { findDrill } from './drill-store';
 import type { StoredVersion } from './procedure-store';
 
@@ -65,11 +66,7 @@ export async function lockDrillForLearner(tx: Tx, drillId: string, userId: strin
     .where(eq(drills.id, drillId))
     .for('share', { of: drills });
   if (!drill) return null;
-  const [member] = await tx
-    .select({ userId: classMembers.userId })
-    .from(classMembers)
-    .where(and(eq(classMembers.classId, drill.classId), eq(classMembers.userId, userId), eq(classMembers.role, 'learner')))
-    .for('update');
+  const [member] = await membership(tx, drill.classId, userId, 'learner').for('update');
   if (!member) return null;
   const { versionId, procedureId, document, checksum, classId: _class, ...rules } = drill;
   return { ...rules, pinned: { id: versionId, procedureId, slug: drill.slug, version: drill.version, document, checksum } };

@@ -1,5 +1,6 @@
 import { drillAssignedMessage, drillLink } from '../mail/drill-messages';
-import { learnersOf, type Database, type DrillRecord } from './drill-store';
+import { learnersOf } from './class-members';
+import type { Database, DrillRecord } from './drill-store';
 import type { Mailer } from './mailer';
 
 /**

@@ -2,7 +2,8 @@ import { and, eq, gt, isNull, lte } from 'drizzle-orm';
 import { drillReminders, drills } from '../../db/schema';
 import { drillProgress } from '../drills/progress';
 import { drillLink, drillReminderMessage } from '../mail/drill-messages';
-import { drillAttempts, drillQuery, learnersOf, rulesOf, type Database } from './drill-store';
+import { learnersOf } from './class-members';
+import { drillAttempts, drillQuery, rulesOf, type Database } from './drill-store';
 import type { Mailer } from './mailer';
 
 // The reminder a day before a drill is due. Run by `npm run remind` on a schedule; each learner gets at
