@@ -9,8 +9,28 @@ import type { Stage } from '../procedure/schema';
 export type Database = NodePgDatabase<typeof schema>;
 const { attempts, classes, drills, procedures, procedureVersions } = schema;
 
+/** The terms a drill was set with; every read of a drill needs them. */
+export interface DrillTerms {
+  stages: Stage[];
+  dueAt: Date;
+  passMarkPct: number;
+  attemptLimit: number | null;
+  answersAfterDue: boolean;
+  closedAt: Date | null;
+}
+
+/** The columns of DrillTerms, for selects on `drills`. */
+export const drillTermColumns = {
+  stages: drills.stages,
+  dueAt: drills.dueAt,
+  passMarkPct: drills.passMarkPct,
+  attemptLimit: drills.attemptLimit,
+  answersAfterDue: drills.answersAfterDue,
+  closedAt: drills.closedAt,
+};
+
 /** A drill with what every view of it needs: its class and its pinned procedure version. */
-export interface DrillRecord {
+export interface DrillRecord extends DrillTerms {
   id: string;
   classId: string;
   className: string;
@@ -18,12 +38,6 @@ export interface DrillRecord {
   slug: string;
   title: string;
   version: number;
-  stages: Stage[];
-  dueAt: Date;
-  passMarkPct: number;
-  attemptLimit: number | null;
-  answersAfterDue: boolean;
-  closedAt: Date | null;
   createdAt: Date;
   updatedAt: Date;
 }
@@ -36,12 +50,7 @@ const drillColumns = {
   slug: procedures.slug,
   title: procedureVersions.title,
   version: procedureVersions.version,
-  stages: drills.stages,
-  dueAt: drills.dueAt,
-  passMarkPct: drills.passMarkPct,
-  attemptLimit: drills.attemptLimit,
-  answersAfterDue: drills.answersAfterDue,
-  closedAt: drills.closedAt,
+  ...drillTermColumns,
   createdAt: drills.createdAt,
   updatedAt: drills.updatedAt,
 };
