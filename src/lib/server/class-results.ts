@@ -4,12 +4,12 @@ import { attempts, classes, drills, procedures, procedureVersions, signOffs, use
 import { mayRunClass, staffClass, type StaffRefusal } from './class-access';
 import { learnersOf } from './class-members';
 import { attemptForViewer } from './attempts';
+import type { AttemptView } from './attempt-row';
 import { jsonError } from './http';
 import { buildClassResults, type ClassResults } from '../results/class-results';
 import type { GroupSplit } from '../results/item-analysis';
 import type { SessionUser } from '../roles';
 import type { Procedure, Stage } from '../procedure/schema';
-import type { StepResult } from '../scoring/types';
 
 // Queries behind the class results (JSON, CSV and page) and the attempt review; the rules live in
 // lib/results, this file only gathers rows.
@@ -116,18 +116,10 @@ export async function classResults(classId: string, groups: GroupSplit, now = ne
   });
 }
 
-export interface ReviewedAttempt {
-  id: string;
+export interface ReviewedAttempt extends Pick<AttemptView, 'id' | 'score' | 'maxScore' | 'passed' | 'results' | 'notes' | 'answer' | 'createdAt'> {
   learner: { id: string; name: string };
   procedure: { slug: string; version: number; title: string; document: Procedure };
   stage: Stage;
-  score: number;
-  maxScore: number;
-  passed: boolean;
-  results: StepResult[];
-  notes: string[];
-  answer: unknown;
-  createdAt: Date;
   /** The drill the attempt counted toward, with its class, when the viewer may see that class's results. */
   drill: { id: string; classId: string; className: string } | null;
   /** The learner's attempts on the same stage (of the same drill, or of no drill), oldest first. */
