@@ -7,7 +7,7 @@ import { correctAnswer } from '../../src/lib/procedure/reference-answers';
 import { demoProcedure } from '../support/demo-procedures';
 import { testDb } from './helpers/db';
 import { classWithLearners } from './helpers/drill-class';
-import { mailTo } from './helpers/mail-catcher';
+import { mailTo } from '../support/mail-catcher';
 
 // `npm run remind` with a fixed clock (--now): the reminder a day before a drill is due, once per learner.
 

@@ -8,7 +8,7 @@ import { demoProcedure } from '../support/demo-procedures';
 import { newLearner, type Client } from './helpers/client';
 import { testDb } from './helpers/db';
 import { classWithLearners, inDays } from './helpers/drill-class';
-import { waitForMail } from './helpers/mail-catcher';
+import { waitForMail } from '../support/mail-catcher';
 
 const sump = demoProcedure('wren-160-sump');
 const spark = demoProcedure('wren-160-spark-plug');

@@ -1,13 +1,5 @@
 // Reads what the local mail catcher caught (scripts/fakes/mail-catcher.mjs), for integration and e2e tests.
-
-export interface CaughtMessage {
-  id: string;
-  from: string;
-  to: string[];
-  subject: string;
-  text: string;
-  receivedAt: string;
-}
+import { isCaughtMessage, type CaughtMessage } from '../../src/lib/mail/caught-message';
 
 function catcherUrl(): string {
   const url = process.env.MAIL_CATCHER_URL;
@@ -15,21 +7,39 @@ function catcherUrl(): string {
   return url;
 }
 
+/**
+ * A test that runs a job with spawnSync blocks this process past the catcher's keep-alive timeout (5 s), so
+ * the pooled connection may be closed under the next request: that one failure is asked again once, on a
+ * new connection.
+ */
+async function getRetryingOnce(url: string): Promise<Response> {
+  try {
+    return await fetch(url);
+  } catch {
+    return fetch(url);
+  }
+}
+
 /** Messages to one address, newest first. */
 export async function mailTo(address: string): Promise<CaughtMessage[]> {
-  const res = await fetch(`${catcherUrl()}/messages?to=${encodeURIComponent(address)}`);
+  const res = await getRetryingOnce(`${catcherUrl()}/messages?to=${encodeURIComponent(address)}`);
   if (!res.ok) throw new Error(`mail catcher answered ${res.status}`);
-  return (await res.json()) as CaughtMessage[];
+  const body: unknown = await res.json();
+  if (!Array.isArray(body) || !body.every(isCaughtMessage)) throw new Error(`mail catcher answered something other than a list of messages: ${JSON.stringify(body)}`);
+  return body;
 }
 
 /**
- * Waits until at least `count` messages to the address have arrived (some mail is sent after the answer,
- * on purpose), and returns them newest first. Gives up after a generous deadline with a clear error.
+ * Waits for mail the app sends after answering (a drill notice goes out once the drill is stored): until at
+ * least `expected` messages to the address have arrived, or, given a test, until one of them passes it.
+ * Returns those messages newest first; gives up after a generous deadline with a clear error.
  */
-export async function waitForMail(address: string, count = 1): Promise<CaughtMessage[]> {
+export async function waitForMail(address: string, expected: number | ((m: CaughtMessage) => boolean) = 1): Promise<CaughtMessage[]> {
+  const count = typeof expected === 'number' ? expected : 1;
+  const wanted = typeof expected === 'number' ? () => true : expected;
   const deadline = Date.now() + 15_000;
   for (;;) {
-    const messages = await mailTo(address);
+    const messages = (await mailTo(address)).filter(wanted);
     if (messages.length >= count) return messages;
     if (Date.now() > deadline) throw new Error(`expected ${count} message(s) to ${address}, caught ${messages.length}`);
     await new Promise((r) => setTimeout(r, 100));

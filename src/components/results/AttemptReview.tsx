@@ -1,5 +1,6 @@
 import { useRef, useState, type KeyboardEvent } from 'react';
 import type { ReviewFrame } from '../../lib/results/attempt-review';
+import { ResultLine } from '../ResultLine';
 
 // Steps through an attempt as the learner did it: one frame at a time with the server's lines about it,
 // Previous / Next (or the arrow keys on the buttons), and the whole list to jump to any frame.
@@ -46,15 +47,9 @@ export default function AttemptReview({ frames }: { frames: ReviewFrame[] }) {
         ) : (
           <ul className="mt-4 space-y-2" aria-label="Server results">
             {frame.lines.map((line, i) => (
-              <li key={i} className={`flex gap-2 rounded-lg border p-3 ${line.ok ? 'border-go-500 bg-go-50' : 'border-signal-500 bg-signal-50'}`}>
-                <span aria-hidden="true" className={`font-bold ${line.ok ? 'text-go-700' : 'text-signal-700'}`}>
-                  {line.ok ? '✓' : '✗'}
-                </span>
-                <span>
-                  <span className="sr-only">{line.ok ? 'Right: ' : 'Wrong: '}</span>
-                  {line.message}
-                </span>
-              </li>
+              <ResultLine key={i} ok={line.ok} className={`rounded-lg border p-3 ${line.ok ? 'border-go-500 bg-go-50' : 'border-signal-500 bg-signal-50'}`} markClass="font-bold">
+                {line.message}
+              </ResultLine>
             ))}
           </ul>
         )}

@@ -6,6 +6,7 @@ import type { Verdict } from '../trainer/scene/tones';
 import { loadProcedure, sendAnswer } from './api';
 import type { ReworkAnswerResult, ReworkItem } from './types';
 import { dueWords, fromNow } from './when';
+import { ResultLine } from '../ResultLine';
 
 // One rework question: pick from the list (or on the model), optionally with a hint, and the server
 // says right or wrong with its reasons and when the item comes back.
@@ -159,15 +160,9 @@ export function QuestionCard({ item, position, onAnswered, onNext }: Props) {
           )}
           <ul className="mt-2 space-y-1">
             {result.results.map((line, i) => (
-              <li key={i} className="flex gap-2">
-                <span aria-hidden="true" className={line.ok ? 'text-go-700' : 'text-signal-700'}>
-                  {line.ok ? '✓' : '✗'}
-                </span>
-                <span>
-                  <span className="sr-only">{line.ok ? 'Right: ' : 'Wrong: '}</span>
-                  {line.message}
-                </span>
-              </li>
+              <ResultLine key={i} ok={line.ok}>
+                {line.message}
+              </ResultLine>
             ))}
           </ul>
           {result.notes.length > 0 && (

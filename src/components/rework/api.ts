@@ -1,30 +1,19 @@
-import { ApiError } from '../trainer/api';
+import { refusal, send } from '../api-client';
 import type { PublicProcedure } from '../../lib/procedure/public-view';
 import type { ReworkAnswerResult, ReworkList } from './types';
 
 // The rework page's calls to the server; errors become ApiError with words a learner can act on.
 
-async function errorText(response: Response): Promise<string | null> {
-  try {
-    const body: unknown = await response.json();
-    if (body && typeof body === 'object' && 'error' in body && typeof body.error === 'string') return body.error;
-  } catch {
-    // Not JSON: the status alone has to do.
-  }
-  return null;
-}
+const REFUSAL_WORDS = {
+  signedOut: 'You are signed out. Sign in again, then come back to your rework.',
+  serverDown: 'The server could not answer just now. Try again in a moment.',
+  refused: (status: number) => `The server refused this (${status}).`,
+};
 
 async function request(path: string, init: RequestInit, offline: string): Promise<Response> {
-  let response: Response;
-  try {
-    response = await fetch(path, { credentials: 'same-origin', ...init, headers: { Accept: 'application/json', ...init.headers } });
-  } catch {
-    throw new ApiError(0, offline);
-  }
+  const response = await send(path, init, offline);
   if (response.ok) return response;
-  if (response.status === 401) throw new ApiError(401, 'You are signed out. Sign in again, then come back to your rework.');
-  if (response.status >= 500) throw new ApiError(response.status, 'The server could not answer just now. Try again in a moment.');
-  throw new ApiError(response.status, (await errorText(response)) ?? `The server refused this (${response.status}).`);
+  throw await refusal(response, REFUSAL_WORDS);
 }
 
 export async function loadRework(): Promise<ReworkList> {

@@ -3,6 +3,7 @@ import type { Stage } from '../../lib/procedure/schema';
 import { useTrainer } from './context';
 import { STAGE_LABELS } from './labels';
 import { stageTabId } from './StageTabs';
+import { ResultLine } from '../ResultLine';
 
 // The server's verdict on a stage, line by line in words; the scene marks the same lines on the model.
 
@@ -54,16 +55,10 @@ export function Feedback({ stage }: { stage: Stage }) {
           const full = stage === 'order' ? stepText(line.key) : undefined;
           const text = full && !line.message.includes(full.replace(/\.$/, '')) ? full : undefined;
           return (
-            <li key={`${line.key}-${i}`} className="flex gap-2 rounded-lg bg-white/70 p-2">
-              <span aria-hidden="true" className={`mt-0.5 font-bold ${line.ok ? 'text-go-700' : 'text-signal-700'}`}>
-                {line.ok ? '✓' : '✗'}
-              </span>
-              <span>
-                <span className="sr-only">{line.ok ? 'Right: ' : 'Wrong: '}</span>
-                {text && <span className="block font-semibold text-steel-900">{text}</span>}
-                <span className={text ? 'text-sm text-steel-700' : 'text-steel-900'}>{line.message}</span>
-              </span>
-            </li>
+            <ResultLine key={`${line.key}-${i}`} ok={line.ok} className="rounded-lg bg-white/70 p-2" markClass="mt-0.5 font-bold">
+              {text && <span className="block font-semibold text-steel-900">{text}</span>}
+              <span className={text ? 'text-sm text-steel-700' : 'text-steel-900'}>{line.message}</span>
+            </ResultLine>
           );
         })}
       </ul>

@@ -1,33 +1,11 @@
 import type { Stage } from '../../lib/procedure/schema';
+import { ApiError, defaultFetch, postJson, refusal, type FetchLike } from '../api-client';
 import type { StageStanding } from './drill';
 import type { AttemptResult, Drafts } from './store';
 
 // The trainer's calls to the server. `fetchImpl` is injectable so the draft saver can be tested without a browser.
 
-export type FetchLike = (input: string, init?: RequestInit) => Promise<Response>;
-
-const defaultFetch: FetchLike = (input, init) => fetch(input, init);
-
-/** A failed request, with words a learner can act on. `status` is 0 when the network failed. */
-export class ApiError extends Error {
-  constructor(
-    readonly status: number,
-    message: string,
-  ) {
-    super(message);
-    this.name = 'ApiError';
-  }
-}
-
-async function errorText(response: Response): Promise<string | null> {
-  try {
-    const body: unknown = await response.json();
-    if (body && typeof body === 'object' && 'error' in body && typeof body.error === 'string') return body.error;
-  } catch {
-    // Not JSON (a proxy's error page): the status alone has to do.
-  }
-  return null;
-}
+export { ApiError, type FetchLike };
 
 export interface SubmitRequest {
   procedure: string;
@@ -42,20 +20,6 @@ export interface SubmitRequest {
 /** The server's verdict, and on a drill the learner's standing on each of its stages afterwards. */
 export interface SubmitAnswer extends AttemptResult {
   drill?: { stages: StageStanding[] };
-}
-
-/** POSTs JSON; a network failure becomes an ApiError with status 0 and the given words. */
-async function postJson(path: string, body: unknown, offlineMessage: string, fetchImpl: FetchLike): Promise<Response> {
-  try {
-    return await fetchImpl(path, {
-      method: 'POST',
-      credentials: 'same-origin',
-      headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
-      body: JSON.stringify(body),
-    });
-  } catch {
-    throw new ApiError(0, offlineMessage);
-  }
 }
 
 /** POST /api/attempts; throws ApiError with a message fit to show. */
@@ -79,10 +43,11 @@ export async function submitAttempt(request: SubmitRequest, fetchImpl: FetchLike
       ...(body.drill ? { drill: { stages: body.drill.stages } } : {}),
     };
   }
-  const text = await errorText(response);
-  if (response.status === 401) throw new ApiError(401, 'You are signed out. Sign in again in another tab, then check again; your work is kept.');
-  if (response.status >= 500) throw new ApiError(response.status, 'The server could not score this just now. Your work is kept; try again in a moment.');
-  throw new ApiError(response.status, text ?? `The server refused the check (${response.status}).`);
+  throw await refusal(response, {
+    signedOut: 'You are signed out. Sign in again in another tab, then check again; your work is kept.',
+    serverDown: 'The server could not score this just now. Your work is kept; try again in a moment.',
+    refused: (status) => `The server refused the check (${status}).`,
+  });
 }
 
 export interface DraftCopy {

@@ -3,6 +3,9 @@ import { STAGE_LABELS } from '../../components/trainer/labels';
 import type { DrillStatus } from '../drills/progress';
 import { STATUS_LABELS, formatPct } from '../drills/labels';
 import { formatUtcDateTime } from '../local-time';
+import type { MailText } from './account-messages';
+
+export type { MailText };
 
 // The plain-text e-mails about drills. Pure: the caller gives the facts, the link and the clock's words.
 
@@ -17,11 +20,6 @@ export interface DrillMailFacts {
   answersAfterDue: boolean;
   /** Opens the trainer on this drill. */
   link: string;
-}
-
-export interface MailText {
-  subject: string;
-  text: string;
 }
 
 function ruleLines(f: DrillMailFacts): string[] {
@@ -40,21 +38,17 @@ const SIGN_OFF = [
   'Benchwright trains and scores; the engine maker\'s data, local codes and your instructor rule at the bench.',
 ];
 
+/** Every drill e-mail: the greeting, what happened, the drill's rules, the link and the sign-off. */
+function drillMail(f: DrillMailFacts, subject: string, opening: string): MailText {
+  return {
+    subject,
+    text: [`Hello ${f.learnerName},`, '', opening, '', ...ruleLines(f), '', `Open it: ${f.link}`, ...SIGN_OFF].join('\n'),
+  };
+}
+
 /** Sent to each learner of the class when an instructor assigns a drill. */
 export function drillAssignedMessage(f: DrillMailFacts): MailText {
-  return {
-    subject: `New drill for ${f.className}: ${f.procedureTitle}`,
-    text: [
-      `Hello ${f.learnerName},`,
-      '',
-      `Your instructor assigned a drill in ${f.className}: ${f.procedureTitle}.`,
-      '',
-      ...ruleLines(f),
-      '',
-      `Open it: ${f.link}`,
-      ...SIGN_OFF,
-    ].join('\n'),
-  };
+  return drillMail(f, `New drill for ${f.className}: ${f.procedureTitle}`, `Your instructor assigned a drill in ${f.className}: ${f.procedureTitle}.`);
 }
 
 export interface DrillStanding {
@@ -68,19 +62,7 @@ export function drillReminderMessage(f: DrillMailFacts & { standing: DrillStandi
     f.standing.status === 'not-started'
       ? 'You have not started it yet.'
       : `So far: ${STATUS_LABELS[f.standing.status].toLowerCase()}, best score ${formatPct(f.standing.bestPct)}.`;
-  return {
-    subject: `Due soon: ${f.procedureTitle} (${f.className})`,
-    text: [
-      `Hello ${f.learnerName},`,
-      '',
-      `The drill ${f.procedureTitle} in ${f.className} is due ${formatUtcDateTime(f.dueAt)}. ${where}`,
-      '',
-      ...ruleLines(f),
-      '',
-      `Open it: ${f.link}`,
-      ...SIGN_OFF,
-    ].join('\n'),
-  };
+  return drillMail(f, `Due soon: ${f.procedureTitle} (${f.className})`, `The drill ${f.procedureTitle} in ${f.className} is due ${formatUtcDateTime(f.dueAt)}. ${where}`);
 }
 
 /** The trainer on a drill: `${appUrl}/train/<slug>?drill=<id>`. */

@@ -1,7 +1,7 @@
 import type { Procedure, Stage } from '../procedure/schema';
 import type { StepResult } from '../scoring/types';
 import { drillProgress, type DrillStatus } from '../drills/progress';
-import { analyseItems, GROUP_SPLITS, type GroupSplit } from './item-analysis';
+import { analyseItems, GROUP_SPLITS, type GroupSplit, type ItemStats } from './item-analysis';
 import { drillSteps, stepRight } from './steps';
 
 // The instructor's view of a class, built from plain rows so it can be tested without a database.
@@ -84,17 +84,10 @@ export interface LearnerRow {
   signOffs: LearnerSignOff[];
 }
 
-export interface StepStats {
+export interface StepStats extends ItemStats {
   stage: Stage;
   key: string;
   label: string;
-  correct: number;
-  p: number | null;
-  missed: number | null;
-  upperCorrect: number | null;
-  lowerCorrect: number | null;
-  d: number | null;
-  rpb: number | null;
 }
 
 export interface StepAnalysis {

@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm';
 import { db, type Db } from './db';
-import { attempts, classMembers, procedures, procedureVersions } from '../../db/schema';
+import { attempts, procedures, procedureVersions } from '../../db/schema';
+import { mayViewLearner } from './class-access';
 import { attemptRow, createdAttempt, type AttemptView } from './attempt-row';
 import { attemptsOnDrill, lockDrillForLearner, type DrillOutcome, type Tx } from './drill-attempts';
 import { rulesOf } from './drill-store';
@@ -140,21 +141,8 @@ function sameSubmission(previous: AttemptView, input: AttemptRequest): boolean {
 export async function attemptForViewer(viewer: SessionUser, attemptId: string): Promise<AttemptView | null> {
   const [row] = await attemptQuery().where(eq(attempts.id, attemptId));
   if (!row) return null;
-  if (row.learnerId === viewer.id || viewer.role === 'admin') return row;
-  if (viewer.role !== 'instructor') return null;
-  return (await teachesLearner(viewer.id, row.learnerId)) ? row : null;
+  return row.learnerId === viewer.id || (await mayViewLearner(viewer, row.learnerId)) ? row : null;
 }
 
-/** True when the instructor teaches a class the learner is a learner in (shared by attempts and uploads). */
-export async function teachesLearner(instructorId: string, learnerId: string): Promise<boolean> {
-  const teacher = db
-    .select({ classId: classMembers.classId })
-    .from(classMembers)
-    .where(and(eq(classMembers.userId, instructorId), eq(classMembers.role, 'instructor')));
-  const [shared] = await db
-    .select({ classId: classMembers.classId })
-    .from(classMembers)
-    .where(and(eq(classMembers.userId, learnerId), eq(classMembers.role, 'learner')))
-    .intersect(teacher);
-  return Boolean(shared);
-}
+// Uploads ask the same question of a photo's owner.
+export { teachesLearner } from './classes';

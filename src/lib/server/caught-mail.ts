@@ -1,24 +1,10 @@
 import { MAIL_CATCHER_URL } from 'astro:env/server';
-
-export interface CaughtMessage {
-  id: string;
-  from: string;
-  to: string[];
-  subject: string;
-  text: string;
-  receivedAt: string;
-}
+import { isCaughtMessage, type CaughtMessage } from '../mail/caught-message';
 
 export type CaughtMail =
   | { kind: 'relay' }
   | { kind: 'unreachable'; reason: string }
   | { kind: 'caught'; messages: CaughtMessage[] };
-
-function isMessage(value: unknown): value is CaughtMessage {
-  if (!value || typeof value !== 'object') return false;
-  const m = value as Record<string, unknown>;
-  return typeof m.id === 'string' && Array.isArray(m.to) && typeof m.subject === 'string' && typeof m.text === 'string' && typeof m.receivedAt === 'string';
-}
 
 /**
  * What the local mail catcher holds, newest first. Only a development or test setup sets MAIL_CATCHER_URL;
@@ -33,7 +19,7 @@ export async function caughtMail(to?: string): Promise<CaughtMail> {
     if (!res.ok) return { kind: 'unreachable', reason: `it answered ${res.status}` };
     const body: unknown = await res.json();
     if (!Array.isArray(body)) return { kind: 'unreachable', reason: 'its answer was not a list' };
-    return { kind: 'caught', messages: body.filter(isMessage) };
+    return { kind: 'caught', messages: body.filter(isCaughtMessage) };
   } catch (err) {
     return { kind: 'unreachable', reason: err instanceof Error ? err.message : 'no answer' };
   }

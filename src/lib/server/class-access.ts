@@ -1,13 +1,12 @@
-import { and, eq } from 'drizzle-orm';
 import { z } from 'zod';
-import { classes, classMembers } from '../../db/schema';
 import type { SessionUser } from '../roles';
-import { db } from './db';
+import { findClass, isClassInstructor, isClassLearner, teachesLearner } from './classes';
 import { requireRole } from './guard';
 import { jsonError } from './http';
 
-// Who may run a class: admins any, instructors only those they teach. One place for the rule, so every
-// class route answers 403 for another instructor's class and 404 for no class at all.
+// Who may do what with a class, built on the membership queries in class-members.ts (through classes.ts): admins run any class,
+// instructors only those they teach, learners see their own. Every route asks here; each keeps its own
+// status codes for a refusal (most answer 403 for another instructor's class and 404 for no class at all).
 
 export interface StaffClass {
   id: string;
@@ -15,23 +14,47 @@ export interface StaffClass {
   joinCode: string;
 }
 
-export type TaughtClass = { ok: true; cls: StaffClass } | { ok: false; status: 403 | 404; error: string };
+/** True when the viewer may run the (existing) class: an admin, or one of its instructors. */
+export async function mayRunClass(viewer: SessionUser, classId: string): Promise<boolean> {
+  if (viewer.role === 'admin') return true;
+  return viewer.role === 'instructor' && (await isClassInstructor(classId, viewer.id));
+}
+
+/** True when the viewer may see this learner's work: an admin, or an instructor of a class the learner is in. */
+export async function mayViewLearner(viewer: SessionUser, learnerId: string): Promise<boolean> {
+  if (viewer.role === 'admin') return true;
+  return viewer.role === 'instructor' && (await teachesLearner(viewer.id, learnerId));
+}
+
+/** Why staff access to a class was refused; each route turns it into its own status. */
+export type StaffRefusal = 'malformed-id' | 'no-class' | 'not-staff' | 'not-taught';
 
 const uuid = z.string().uuid();
 
-/** The class if the viewer may run it; ids that are not UUIDs are simply not classes (404). */
-export async function classTaughtBy(viewer: SessionUser, rawId: string | undefined): Promise<TaughtClass> {
+/** The class if the viewer may run it, else why not. */
+export async function staffClass(viewer: SessionUser, rawId: string | undefined): Promise<{ ok: true; cls: StaffClass } | { ok: false; why: StaffRefusal }> {
   const id = uuid.safeParse(rawId);
-  if (!id.success) return { ok: false, status: 404, error: 'No such class' };
-  const [cls] = await db.select({ id: classes.id, name: classes.name, joinCode: classes.joinCode }).from(classes).where(eq(classes.id, id.data));
-  if (!cls) return { ok: false, status: 404, error: 'No such class' };
-  if (viewer.role === 'admin') return { ok: true, cls };
-  if (viewer.role !== 'instructor') return { ok: false, status: 403, error: 'Your role cannot do this' };
-  const [member] = await db
-    .select({ userId: classMembers.userId })
-    .from(classMembers)
-    .where(and(eq(classMembers.classId, cls.id), eq(classMembers.userId, viewer.id), eq(classMembers.role, 'instructor')));
-  return member ? { ok: true, cls } : { ok: false, status: 403, error: 'You do not teach this class' };
+  if (!id.success) return { ok: false, why: 'malformed-id' };
+  const cls = await findClass(id.data);
+  if (!cls) return { ok: false, why: 'no-class' };
+  if (viewer.role !== 'admin' && viewer.role !== 'instructor') return { ok: false, why: 'not-staff' };
+  return (await mayRunClass(viewer, cls.id)) ? { ok: true, cls } : { ok: false, why: 'not-taught' };
+}
+
+export type TaughtClass = { ok: true; cls: StaffClass } | { ok: false; status: 403 | 404; error: string };
+
+const TAUGHT_REFUSALS: Record<StaffRefusal, { status: 403 | 404; error: string }> = {
+  // Ids that are not UUIDs are simply not classes.
+  'malformed-id': { status: 404, error: 'No such class' },
+  'no-class': { status: 404, error: 'No such class' },
+  'not-staff': { status: 403, error: 'Your role cannot do this' },
+  'not-taught': { status: 403, error: 'You do not teach this class' },
+};
+
+/** The class if the viewer may run it; 404 for no class (or an id that is not one), 403 for anyone else's. */
+export async function classTaughtBy(viewer: SessionUser, rawId: string | undefined): Promise<TaughtClass> {
+  const access = await staffClass(viewer, rawId);
+  return access.ok ? access : { ok: false, ...TAUGHT_REFUSALS[access.why] };
 }
 
 type Access = { ok: true; user: SessionUser; cls: StaffClass } | { ok: false; response: Response };
@@ -45,10 +68,14 @@ export async function classForStaff(locals: App.Locals, classId: string | undefi
   return { ok: true, user: gate.user, cls: taught.cls };
 }
 
-export async function isClassLearner(classId: string, userId: string): Promise<boolean> {
-  const [row] = await db
-    .select({ userId: classMembers.userId })
-    .from(classMembers)
-    .where(and(eq(classMembers.classId, classId), eq(classMembers.userId, userId), eq(classMembers.role, 'learner')));
-  return Boolean(row);
+export type ClassAccess = 'manage' | 'learner' | null;
+
+/**
+ * How the user stands in a class: 'manage' for its instructors and admins, 'learner' for a learner in
+ * it, null for anyone else or a class that does not exist.
+ */
+export async function classAccess(classId: string, user: SessionUser): Promise<ClassAccess> {
+  if (user.role === 'admin') return (await findClass(classId)) ? 'manage' : null;
+  if (user.role === 'instructor') return (await isClassInstructor(classId, user.id)) ? 'manage' : null;
+  return (await isClassLearner(classId, user.id)) ? 'learner' : null;
 }

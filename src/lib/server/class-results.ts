@@ -1,29 +1,28 @@
 import { and, asc, desc, eq, inArray } from 'drizzle-orm';
-import { z } from 'zod';
 import { db } from './db';
-import { attempts, classes, classMembers, drills, procedures, procedureVersions, signOffs, users } from '../../db/schema';
-import { isClassInstructor } from './classes';
+import { attempts, classes, drills, procedures, procedureVersions, signOffs, users } from '../../db/schema';
+import { mayRunClass, staffClass, type StaffRefusal } from './class-access';
+import { learnersOf } from './class-members';
 import { attemptForViewer } from './attempts';
+import type { AttemptView } from './attempt-row';
 import { jsonError } from './http';
 import { buildClassResults, type ClassResults } from '../results/class-results';
 import type { GroupSplit } from '../results/item-analysis';
 import type { SessionUser } from '../roles';
 import type { Procedure, Stage } from '../procedure/schema';
-import type { StepResult } from '../scoring/types';
 
 // Queries behind the class results (JSON, CSV and page) and the attempt review; the rules live in
 // lib/results, this file only gathers rows.
 
 export type ResultsAccess = { ok: true; classId: string; className: string } | { ok: false; status: 400 | 403 | 404 };
 
+const REFUSALS: Record<StaffRefusal, 400 | 403 | 404> = { 'malformed-id': 400, 'no-class': 404, 'not-staff': 403, 'not-taught': 403 };
+
 /** Who may see a class's results: its instructors and admins. A malformed id is 400, an unknown one 404. */
 export async function resultsAccess(user: SessionUser, rawId: string | undefined): Promise<ResultsAccess> {
-  const id = z.string().uuid().safeParse(rawId);
-  if (!id.success) return { ok: false, status: 400 };
-  const [cls] = await db.select({ id: classes.id, name: classes.name }).from(classes).where(eq(classes.id, id.data));
-  if (!cls) return { ok: false, status: 404 };
-  if (user.role !== 'admin' && !(user.role === 'instructor' && (await isClassInstructor(cls.id, user.id)))) return { ok: false, status: 403 };
-  return { ok: true, classId: cls.id, className: cls.name };
+  const access = await staffClass(user, rawId);
+  if (!access.ok) return { ok: false, status: REFUSALS[access.why] };
+  return { ok: true, classId: access.cls.id, className: access.cls.name };
 }
 
 const ACCESS_ERRORS = {
@@ -39,12 +38,7 @@ export async function classResults(classId: string, groups: GroupSplit, now = ne
   const [cls] = await db.select({ id: classes.id, name: classes.name }).from(classes).where(eq(classes.id, classId));
   if (!cls) return null;
 
-  const learners = await db
-    .select({ id: users.id, name: users.name, email: users.email })
-    .from(classMembers)
-    .innerJoin(users, eq(users.id, classMembers.userId))
-    .where(and(eq(classMembers.classId, classId), eq(classMembers.role, 'learner')))
-    .orderBy(asc(users.name), asc(users.email));
+  const learners = await learnersOf(db, classId);
 
   const drillRows = await db
     .select({
@@ -122,18 +116,10 @@ export async function classResults(classId: string, groups: GroupSplit, now = ne
   });
 }
 
-export interface ReviewedAttempt {
-  id: string;
+export interface ReviewedAttempt extends Pick<AttemptView, 'id' | 'score' | 'maxScore' | 'passed' | 'results' | 'notes' | 'answer' | 'createdAt'> {
   learner: { id: string; name: string };
   procedure: { slug: string; version: number; title: string; document: Procedure };
   stage: Stage;
-  score: number;
-  maxScore: number;
-  passed: boolean;
-  results: StepResult[];
-  notes: string[];
-  answer: unknown;
-  createdAt: Date;
   /** The drill the attempt counted toward, with its class, when the viewer may see that class's results. */
   drill: { id: string; classId: string; className: string } | null;
   /** The learner's attempts on the same stage (of the same drill, or of no drill), oldest first. */
@@ -174,7 +160,7 @@ export async function attemptForReview(viewer: SessionUser, attemptId: string): 
 
   let drill: ReviewedAttempt['drill'] = null;
   if (row.drillId && row.classId && row.className) {
-    const mayLink = viewer.role === 'admin' || (await isClassInstructor(row.classId, viewer.id));
+    const mayLink = await mayRunClass(viewer, row.classId);
     if (mayLink) drill = { id: row.drillId, classId: row.classId, className: row.className };
   }
 

@@ -1,6 +1,7 @@
 import { randomInt } from 'node:crypto';
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { db } from './db';
+import { hasClassRole, teachesLearner as sharesClass } from './class-members';
 import { classes, classMembers, schools, users } from '../../db/schema';
 import { JOIN_CODE_ALPHABET, JOIN_CODE_LENGTH } from '../schemas/classes';
 
@@ -99,10 +100,21 @@ export async function classWithMembers(classId: string) {
   return { ...cls, members };
 }
 
-export async function isClassInstructor(classId: string, userId: string): Promise<boolean> {
-  const [row] = await db
-    .select({ userId: classMembers.userId })
-    .from(classMembers)
-    .where(and(eq(classMembers.classId, classId), eq(classMembers.userId, userId), eq(classMembers.role, 'instructor')));
-  return Boolean(row);
+/** The class's name and join code, or null; callers check that the viewer may see it. */
+export async function findClass(classId: string): Promise<{ id: string; name: string; joinCode: string } | null> {
+  const [cls] = await db.select({ id: classes.id, name: classes.name, joinCode: classes.joinCode }).from(classes).where(eq(classes.id, classId));
+  return cls ?? null;
+}
+
+export function isClassInstructor(classId: string, userId: string): Promise<boolean> {
+  return hasClassRole(db, classId, userId, 'instructor');
+}
+
+export function isClassLearner(classId: string, userId: string): Promise<boolean> {
+  return hasClassRole(db, classId, userId, 'learner');
+}
+
+/** True when the instructor teaches a class the learner is a learner in (attempts, uploads, progress). */
+export function teachesLearner(instructorId: string, learnerId: string): Promise<boolean> {
+  return sharesClass(db, instructorId, learnerId);
 }

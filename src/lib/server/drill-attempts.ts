@@ -1,11 +1,11 @@
 import { and, eq } from 'drizzle-orm';
 import { db, type Db } from './db';
-import { attempts, classMembers, drills, procedures, procedureVersions } from '../../db/schema';
+import { attempts, drills, procedures, procedureVersions } from '../../db/schema';
 import { answersHidden } from '../drills/answers';
 import type { DrillAttempt, DrillProgress } from '../drills/progress';
-import type { Stage } from '../procedure/schema';
 import type { SessionUser } from '../roles';
-import { findDrill } from './drill-store';
+import { membership } from './class-members';
+import { drillTermColumns, findDrill, type DrillTerms } from './drill-store';
 import type { StoredVersion } from './procedure-store';
 
 // The database side of attempts made on a drill: the locks that keep the attempt limit, the learner's
@@ -14,16 +14,10 @@ import type { StoredVersion } from './procedure-store';
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
 /** A drill as an attempt on it needs it, with the pinned version to score against. */
-export interface LockedDrill {
+export interface LockedDrill extends DrillTerms {
   id: string;
   slug: string;
   version: number;
-  stages: Stage[];
-  dueAt: Date;
-  passMarkPct: number;
-  attemptLimit: number | null;
-  answersAfterDue: boolean;
-  closedAt: Date | null;
   pinned: StoredVersion;
 }
 
@@ -46,12 +40,7 @@ export async function lockDrillForLearner(tx: Tx, drillId: string, userId: strin
     .select({
       id: drills.id,
       classId: drills.classId,
-      stages: drills.stages,
-      dueAt: drills.dueAt,
-      passMarkPct: drills.passMarkPct,
-      attemptLimit: drills.attemptLimit,
-      answersAfterDue: drills.answersAfterDue,
-      closedAt: drills.closedAt,
+      ...drillTermColumns,
       versionId: procedureVersions.id,
       procedureId: procedureVersions.procedureId,
       slug: procedures.slug,
@@ -65,11 +54,7 @@ export async function lockDrillForLearner(tx: Tx, drillId: string, userId: strin
     .where(eq(drills.id, drillId))
     .for('share', { of: drills });
   if (!drill) return null;
-  const [member] = await tx
-    .select({ userId: classMembers.userId })
-    .from(classMembers)
-    .where(and(eq(classMembers.classId, drill.classId), eq(classMembers.userId, userId), eq(classMembers.role, 'learner')))
-    .for('update');
+  const [member] = await membership(tx, drill.classId, userId, 'learner').for('update');
   if (!member) return null;
   const { versionId, procedureId, document, checksum, classId: _class, ...rules } = drill;
   return { ...rules, pinned: { id: versionId, procedureId, slug: drill.slug, version: drill.version, document, checksum } };

@@ -1,6 +1,36 @@
-import { drillAssignedMessage, drillLink } from '../mail/drill-messages';
-import { learnersOf, type Database, type DrillRecord } from './drill-store';
+import { drillAssignedMessage, drillLink, type DrillMailFacts, type MailText } from '../mail/drill-messages';
+import { learnersOf, type Learner } from './class-members';
+import type { Database, DrillRecord } from './drill-store';
 import type { Mailer } from './mailer';
+
+// Mail to the learners of a drill: the notice when it is assigned (here) and the reminder before it is due
+// (reminders.ts) say the same facts and fail the same way.
+
+/** What every drill e-mail tells this learner about the drill. */
+export function drillMailFacts(drill: DrillRecord, learner: Learner, appUrl: string): DrillMailFacts {
+  return {
+    learnerName: learner.name,
+    className: drill.className,
+    procedureTitle: drill.title,
+    stages: drill.stages,
+    dueAt: drill.dueAt,
+    passMarkPct: drill.passMarkPct,
+    attemptLimit: drill.attemptLimit,
+    answersAfterDue: drill.answersAfterDue,
+    link: drillLink(appUrl, drill.slug, drill.id),
+  };
+}
+
+/** Sends one drill e-mail; a failure is logged, never thrown, and answered false. */
+export async function mailLearner(mailer: Mailer, drill: DrillRecord, learner: Learner, kind: 'notice' | 'reminder', message: MailText): Promise<boolean> {
+  try {
+    await mailer.send({ to: learner.email, ...message });
+    return true;
+  } catch (err) {
+    console.error(`drill ${drill.id}: the ${kind} to ${learner.email} was not sent: ${err instanceof Error ? err.message : String(err)}`);
+    return false;
+  }
+}
 
 /**
  * Tells each learner of the class about a new drill. Called after the drill is stored; a failed send is
@@ -11,24 +41,9 @@ export async function sendDrillNotices(db: Database, mailer: Mailer, drill: Dril
   let sent = 0;
   let failed = 0;
   for (const learner of learners) {
-    const message = drillAssignedMessage({
-      learnerName: learner.name,
-      className: drill.className,
-      procedureTitle: drill.title,
-      stages: drill.stages,
-      dueAt: drill.dueAt,
-      passMarkPct: drill.passMarkPct,
-      attemptLimit: drill.attemptLimit,
-      answersAfterDue: drill.answersAfterDue,
-      link: drillLink(appUrl, drill.slug, drill.id),
-    });
-    try {
-      await mailer.send({ to: learner.email, ...message });
-      sent += 1;
-    } catch (err) {
-      failed += 1;
-      console.error(`drill ${drill.id}: the notice to ${learner.email} was not sent: ${err instanceof Error ? err.message : String(err)}`);
-    }
+    const message = drillAssignedMessage(drillMailFacts(drill, learner, appUrl));
+    if (await mailLearner(mailer, drill, learner, 'notice', message)) sent += 1;
+    else failed += 1;
   }
   return { sent, failed };
 }

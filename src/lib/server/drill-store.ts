@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray } from 'drizzle-orm';
+import { and, eq, inArray } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import * as schema from '../../db/schema';
 import type { DrillAttempt, DrillRules } from '../drills/progress';
@@ -7,10 +7,30 @@ import type { Stage } from '../procedure/schema';
 // Drill reads that take their database as an argument, so the app and the `npm run remind` job share them.
 
 export type Database = NodePgDatabase<typeof schema>;
-const { attempts, classes, classMembers, drills, procedures, procedureVersions, users } = schema;
+const { attempts, classes, drills, procedures, procedureVersions } = schema;
+
+/** The terms a drill was set with; every read of a drill needs them. */
+export interface DrillTerms {
+  stages: Stage[];
+  dueAt: Date;
+  passMarkPct: number;
+  attemptLimit: number | null;
+  answersAfterDue: boolean;
+  closedAt: Date | null;
+}
+
+/** The columns of DrillTerms, for selects on `drills`. */
+export const drillTermColumns = {
+  stages: drills.stages,
+  dueAt: drills.dueAt,
+  passMarkPct: drills.passMarkPct,
+  attemptLimit: drills.attemptLimit,
+  answersAfterDue: drills.answersAfterDue,
+  closedAt: drills.closedAt,
+};
 
 /** A drill with what every view of it needs: its class and its pinned procedure version. */
-export interface DrillRecord {
+export interface DrillRecord extends DrillTerms {
   id: string;
   classId: string;
   className: string;
@@ -18,12 +38,6 @@ export interface DrillRecord {
   slug: string;
   title: string;
   version: number;
-  stages: Stage[];
-  dueAt: Date;
-  passMarkPct: number;
-  attemptLimit: number | null;
-  answersAfterDue: boolean;
-  closedAt: Date | null;
   createdAt: Date;
   updatedAt: Date;
 }
@@ -36,12 +50,7 @@ const drillColumns = {
   slug: procedures.slug,
   title: procedureVersions.title,
   version: procedureVersions.version,
-  stages: drills.stages,
-  dueAt: drills.dueAt,
-  passMarkPct: drills.passMarkPct,
-  attemptLimit: drills.attemptLimit,
-  answersAfterDue: drills.answersAfterDue,
-  closedAt: drills.closedAt,
+  ...drillTermColumns,
   createdAt: drills.createdAt,
   updatedAt: drills.updatedAt,
 };
@@ -63,22 +72,6 @@ export async function findDrill(db: Database, drillId: string): Promise<DrillRec
 
 export function rulesOf(drill: Pick<DrillRecord, 'stages' | 'passMarkPct' | 'attemptLimit' | 'dueAt' | 'closedAt'>): DrillRules {
   return { stages: drill.stages, passMarkPct: drill.passMarkPct, attemptLimit: drill.attemptLimit, dueAt: drill.dueAt, closedAt: drill.closedAt };
-}
-
-export interface Learner {
-  id: string;
-  name: string;
-  email: string;
-}
-
-/** The learners (not the instructors) of a class. */
-export async function learnersOf(db: Database, classId: string): Promise<Learner[]> {
-  return db
-    .select({ id: users.id, name: users.name, email: users.email })
-    .from(classMembers)
-    .innerJoin(users, eq(users.id, classMembers.userId))
-    .where(and(eq(classMembers.classId, classId), eq(classMembers.role, 'learner')))
-    .orderBy(asc(users.name));
 }
 
 /** Attempts made on the drills, grouped by drill and then by learner; optionally one learner's only. */

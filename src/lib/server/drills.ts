@@ -1,36 +1,19 @@
 import { and, eq, inArray } from 'drizzle-orm';
 import { db } from './db';
-import { classes, classMembers, drills, procedureVersions } from '../../db/schema';
+import { drills, procedureVersions } from '../../db/schema';
 import { drillProgress, type DrillProgress } from '../drills/progress';
 import { STAGE_LABELS } from '../../components/trainer/labels';
 import type { Stage } from '../procedure/schema';
 import type { SessionUser } from '../roles';
 import { dueAtChangeError, type CreateDrillInput, type UpdateDrillInput } from '../schemas/drills';
-import { drillAttempts, drillQuery, findDrill, learnersOf, rulesOf, type DrillRecord } from './drill-store';
+import { drillAttempts, drillQuery, findDrill, rulesOf, type DrillRecord } from './drill-store';
 import { emptyCounts, type StatusCounts } from './drill-json';
-import { isClassInstructor } from './classes';
+import { classAccess } from './class-access';
+import { classIdsOf, learnersOf } from './class-members';
+import { isClassLearner } from './classes';
 import { findVersion } from './procedure-store';
 
 // Drills: an instructor assigns one procedure version to a class; learners see how they stand on it.
-
-export type ClassAccess = 'manage' | 'learner' | null;
-
-/**
- * How the user stands in a class: 'manage' for its instructors and admins, 'learner' for a learner in
- * it, null for anyone else or a class that does not exist.
- */
-export async function classAccess(classId: string, user: SessionUser): Promise<ClassAccess> {
-  if (user.role === 'admin') {
-    const [cls] = await db.select({ id: classes.id }).from(classes).where(eq(classes.id, classId));
-    return cls ? 'manage' : null;
-  }
-  if (user.role === 'instructor') return (await isClassInstructor(classId, user.id)) ? 'manage' : null;
-  const [member] = await db
-    .select({ userId: classMembers.userId })
-    .from(classMembers)
-    .where(and(eq(classMembers.classId, classId), eq(classMembers.userId, user.id), eq(classMembers.role, 'learner')));
-  return member ? 'learner' : null;
-}
 
 export type FieldProblem = { ok: false; error: string; fields: Record<string, string[]> };
 const problem = (field: string, error: string): FieldProblem => ({ ok: false, error, fields: { [field]: [error] } });
@@ -132,11 +115,7 @@ export interface LearnerDrill extends DrillRecord {
 
 /** A learner's drills with their standing on each: every class they are in, or one class. */
 export async function drillsOfLearner(userId: string, now: Date, classId?: string): Promise<LearnerDrill[]> {
-  const mine = db
-    .select({ classId: classMembers.classId })
-    .from(classMembers)
-    .where(and(eq(classMembers.userId, userId), eq(classMembers.role, 'learner')));
-  const inClasses = inArray(drills.classId, mine);
+  const inClasses = inArray(drills.classId, classIdsOf(db, userId, 'learner'));
   const list = (await drillQuery(db).where(classId ? and(inClasses, eq(drills.classId, classId)) : inClasses)).sort(byDue);
   const attempts = await drillAttempts(db, list.map((d) => d.id), userId);
   return list.map((drill) => ({ ...drill, progress: drillProgress(rulesOf(drill), attempts.get(drill.id)?.get(userId) ?? [], now) }));
@@ -145,12 +124,7 @@ export async function drillsOfLearner(userId: string, now: Date, classId?: strin
 /** One drill with the learner's standing, when the learner is in its class; null otherwise. */
 export async function drillForLearner(drillId: string, userId: string, now: Date): Promise<LearnerDrill | null> {
   const drill = await findDrill(db, drillId);
-  if (!drill) return null;
-  const [member] = await db
-    .select({ userId: classMembers.userId })
-    .from(classMembers)
-    .where(and(eq(classMembers.classId, drill.classId), eq(classMembers.userId, userId), eq(classMembers.role, 'learner')));
-  if (!member) return null;
+  if (!drill || !(await isClassLearner(drill.classId, userId))) return null;
   const attempts = await drillAttempts(db, [drill.id], userId);
   return { ...drill, progress: drillProgress(rulesOf(drill), attempts.get(drill.id)?.get(userId) ?? [], now) };
 }

@@ -27,13 +27,17 @@ export async function readJson(request: Request, maxBytes?: number): Promise<Jso
   if (!type.includes('application/json')) {
     return { ok: false, response: jsonError(400, 'Send the body as JSON (Content-Type: application/json)') };
   }
-  let text: string | null;
+  let text: string;
   try {
-    text = maxBytes === undefined ? await request.text() : await readTextWithin(request, maxBytes);
+    if (maxBytes === undefined) text = await request.text();
+    else {
+      const body = await readBodyWithin(request, maxBytes);
+      if (body.kind === 'over') return { ok: false, response: jsonError(400, `The body is too large: at most ${maxBytes / 1024} KB`) };
+      text = body.kind === 'absent' ? '' : new TextDecoder().decode(body.bytes);
+    }
   } catch {
     return { ok: false, response: jsonError(400, 'The body could not be read') };
   }
-  if (text === null) return { ok: false, response: jsonError(400, `The body is too large: at most ${maxBytes! / 1024} KB`) };
   try {
     return { ok: true, body: JSON.parse(text) };
   } catch {
@@ -41,13 +45,23 @@ export async function readJson(request: Request, maxBytes?: number): Promise<Jso
   }
 }
 
-/** The body as text, or null once it passes maxBytes. */
-async function readTextWithin(request: Request, maxBytes: number): Promise<string | null> {
-  if (Number(request.headers.get('content-length') ?? 0) > maxBytes) return null;
+export type BodyWithin =
+  | { kind: 'read'; bytes: Uint8Array<ArrayBuffer> }
+  /** No body at all. */
+  | { kind: 'absent' }
+  /** Over the limit: `announced` when the Content-Length said so and nothing was read. */
+  | { kind: 'over'; announced: boolean };
+
+/**
+ * The body's bytes, at most maxBytes. A Content-Length over the limit is refused before a byte is read,
+ * and the bytes are counted as they arrive (a chunked body has no length), so an oversized body is
+ * never buffered whole. Throws when the stream fails.
+ */
+export async function readBodyWithin(request: Request, maxBytes: number): Promise<BodyWithin> {
+  if (Number(request.headers.get('content-length') ?? 0) > maxBytes) return { kind: 'over', announced: true };
   const reader = request.body?.getReader();
-  if (!reader) return '';
-  const decoder = new TextDecoder();
-  let text = '';
+  if (!reader) return { kind: 'absent' };
+  const chunks: Uint8Array[] = [];
   let size = 0;
   for (;;) {
     const { done, value } = await reader.read();
@@ -55,11 +69,17 @@ async function readTextWithin(request: Request, maxBytes: number): Promise<strin
     size += value.byteLength;
     if (size > maxBytes) {
       await reader.cancel();
-      return null;
+      return { kind: 'over', announced: false };
     }
-    text += decoder.decode(value, { stream: true });
+    chunks.push(value);
   }
-  return text + decoder.decode();
+  const bytes = new Uint8Array(size);
+  let offset = 0;
+  for (const chunk of chunks) {
+    bytes.set(chunk, offset);
+    offset += chunk.byteLength;
+  }
+  return { kind: 'read', bytes };
 }
 
 /** ?version=N: undefined when absent (the latest), null when it is not a whole number from 1. */

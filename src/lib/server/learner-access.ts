@@ -1,7 +1,8 @@
-import { and, eq } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import { db } from './db';
-import { classMembers, users } from '../../db/schema';
+import { users } from '../../db/schema';
 import type { SessionUser } from '../roles';
+import { mayViewLearner } from './class-access';
 
 // Who may look at one learner's progress: admins, and instructors of a class the learner is in.
 
@@ -17,16 +18,5 @@ export interface LearnerRef {
 export async function learnerForViewer(viewer: SessionUser, learnerId: string): Promise<LearnerRef | null> {
   const [learner] = await db.select({ id: users.id, name: users.name, role: users.role }).from(users).where(eq(users.id, learnerId));
   if (!learner || learner.role !== 'learner') return null;
-  if (viewer.role === 'admin') return { id: learner.id, name: learner.name };
-  if (viewer.role !== 'instructor') return null;
-  const taught = db
-    .select({ classId: classMembers.classId })
-    .from(classMembers)
-    .where(and(eq(classMembers.userId, viewer.id), eq(classMembers.role, 'instructor')));
-  const [shared] = await db
-    .select({ classId: classMembers.classId })
-    .from(classMembers)
-    .where(and(eq(classMembers.userId, learnerId), eq(classMembers.role, 'learner')))
-    .intersect(taught);
-  return shared ? { id: learner.id, name: learner.name } : null;
+  return (await mayViewLearner(viewer, learner.id)) ? { id: learner.id, name: learner.name } : null;
 }

@@ -1,47 +1,27 @@
-import { jsonError } from './http';
+import { jsonError, readBodyWithin, type BodyWithin } from './http';
 
 type FormResult = { ok: true; form: FormData } | { ok: false; response: Response };
 
 /**
- * Reads a multipart/form-data body of at most maxBytes. A Content-Length over the limit is refused
- * before a byte is read, and the bytes are counted as they arrive (a chunked body has no length),
- * so an oversized upload is never buffered whole. `tooLarge` words the 413 for the caller's limit.
+ * Reads a multipart/form-data body of at most maxBytes (readBodyWithin: an oversized upload is never
+ * buffered whole). `tooLarge` words the 413 for the caller's limit.
  */
 export async function readMultipartWithin(request: Request, maxBytes: number, tooLarge: string): Promise<FormResult> {
   const type = request.headers.get('content-type') ?? '';
   if (!/^multipart\/form-data;/i.test(type)) {
     return { ok: false, response: jsonError(400, 'Send the file as multipart/form-data') };
   }
-  const declared = Number(request.headers.get('content-length') ?? 0);
-  // Not a byte is buffered; Node discards the announced body, so the browser gets to read this answer.
-  if (declared > maxBytes) return { ok: false, response: jsonError(413, tooLarge, { file: [tooLarge] }) };
-
-  const chunks: Uint8Array[] = [];
-  let size = 0;
-  const reader = request.body?.getReader();
-  if (!reader) return { ok: false, response: jsonError(400, 'The form is empty', { file: ['Choose a file'] }) };
+  let body: BodyWithin;
   try {
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) break;
-      size += value.byteLength;
-      if (size > maxBytes) {
-        await reader.cancel();
-        return { ok: false, response: refuseAndClose(tooLarge) };
-      }
-      chunks.push(value);
-    }
+    body = await readBodyWithin(request, maxBytes);
   } catch {
     return { ok: false, response: jsonError(400, 'The upload was interrupted; try again') };
   }
+  // Announced: not a byte is buffered; Node discards the announced body, so the browser gets to read this answer.
+  if (body.kind === 'over') return { ok: false, response: body.announced ? jsonError(413, tooLarge, { file: [tooLarge] }) : refuseAndClose(tooLarge) };
+  if (body.kind === 'absent') return { ok: false, response: jsonError(400, 'The form is empty', { file: ['Choose a file'] }) };
   try {
-    const body = new Uint8Array(size);
-    let offset = 0;
-    for (const chunk of chunks) {
-      body.set(chunk, offset);
-      offset += chunk.byteLength;
-    }
-    const form = await new Response(body, { headers: { 'content-type': type } }).formData();
+    const form = await new Response(body.bytes, { headers: { 'content-type': type } }).formData();
     return { ok: true, form };
   } catch {
     return { ok: false, response: jsonError(400, 'The form could not be read as multipart/form-data') };

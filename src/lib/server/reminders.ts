@@ -1,8 +1,10 @@
 import { and, eq, gt, isNull, lte } from 'drizzle-orm';
 import { drillReminders, drills } from '../../db/schema';
 import { drillProgress } from '../drills/progress';
-import { drillLink, drillReminderMessage } from '../mail/drill-messages';
-import { drillAttempts, drillQuery, learnersOf, rulesOf, type Database } from './drill-store';
+import { drillReminderMessage } from '../mail/drill-messages';
+import { learnersOf } from './class-members';
+import { drillMailFacts, mailLearner } from './drill-notices';
+import { drillAttempts, drillQuery, rulesOf, type Database } from './drill-store';
 import type { Mailer } from './mailer';
 
 // The reminder a day before a drill is due. Run by `npm run remind` on a schedule; each learner gets at
@@ -45,26 +47,13 @@ export async function sendDrillReminders(db: Database, mailer: Mailer, now: Date
         run.alreadyReminded += 1;
         continue;
       }
-      const message = drillReminderMessage({
-        learnerName: learner.name,
-        className: drill.className,
-        procedureTitle: drill.title,
-        stages: drill.stages,
-        dueAt: drill.dueAt,
-        passMarkPct: drill.passMarkPct,
-        attemptLimit: drill.attemptLimit,
-        answersAfterDue: drill.answersAfterDue,
-        link: drillLink(appUrl, drill.slug, drill.id),
-        standing: { status: progress.status, bestPct: progress.bestPct },
-      });
-      try {
-        await mailer.send({ to: learner.email, ...message });
+      const message = drillReminderMessage({ ...drillMailFacts(drill, learner, appUrl), standing: { status: progress.status, bestPct: progress.bestPct } });
+      if (await mailLearner(mailer, drill, learner, 'reminder', message)) {
         run.sent += 1;
-      } catch (err) {
+      } else {
         // Give the claim back so the next run retries this learner.
         await db.delete(drillReminders).where(and(eq(drillReminders.drillId, drill.id), eq(drillReminders.userId, learner.id)));
         run.failed += 1;
-        console.error(`drill ${drill.id}: the reminder to ${learner.email} was not sent: ${err instanceof Error ? err.message : String(err)}`);
       }
     }
   }

@@ -3,7 +3,7 @@ import { alias } from 'drizzle-orm/pg-core';
 import { classes, procedures, procedureVersions, signOffPhotos, signOffs, uploads, users } from '../../db/schema';
 import type { SignOffOutcome, SignOffRequest } from '../schemas/sign-offs';
 import type { SignOffJson } from '../uploads/views';
-import { isClassLearner } from './class-access';
+import { isClassLearner } from './classes';
 import { db } from './db';
 import { findVersion } from './procedure-store';
 import { benchPhotosOf } from './uploads';

@@ -32,19 +32,7 @@ export async function signInBlockedFor(email: string, address: string): Promise<
 
 /** Counts one failure against both keys; a window that has run out starts again at 1. */
 export async function recordSignInFailure(email: string, address: string): Promise<void> {
-  const expired = sql`${signInThrottle.windowStartedAt} + make_interval(mins => ${SIGN_IN_LIMITS.windowMinutes}) <= now()`;
-  for (const key of [accountKey(email), addressKey(address)]) {
-    await db
-      .insert(signInThrottle)
-      .values({ key, failures: 1 })
-      .onConflictDoUpdate({
-        target: signInThrottle.key,
-        set: {
-          failures: sql`case when ${expired} then 1 else ${signInThrottle.failures} + 1 end`,
-          windowStartedAt: sql`case when ${expired} then now() else ${signInThrottle.windowStartedAt} end`,
-        },
-      });
-  }
+  for (const key of [accountKey(email), addressKey(address)]) await countUse(key, SIGN_IN_LIMITS.windowMinutes);
 }
 
 /** A successful sign-in clears the account's counter (the address keeps its own). */
@@ -54,8 +42,8 @@ export async function clearAccountFailures(email: string): Promise<void> {
 
 /**
  * Counts one use of `key` in a fixed window and answers the count, this use included; a window that has
- * run out starts again at 1. For limits other than sign-in failures (password reset requests), sharing
- * the same table so several app processes keep one count.
+ * run out starts again at 1. Sign-in failures and other limits (password reset requests) share the
+ * table, so several app processes keep one count.
  */
 export async function countUse(key: string, windowMinutes: number): Promise<number> {
   const expired = sql`${signInThrottle.windowStartedAt} + make_interval(mins => ${windowMinutes}) <= now()`;

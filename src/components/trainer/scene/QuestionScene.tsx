@@ -1,8 +1,7 @@
-import { useEffect, useMemo, useRef, useState } from 'react';
-import { Canvas, useFrame, useThree } from '@react-three/fiber';
-import { Html, OrbitControls } from '@react-three/drei';
+import { useEffect, useMemo, useState } from 'react';
+import { useFrame, useThree } from '@react-three/fiber';
+import { Html } from '@react-three/drei';
 import { Box3, Vector3 } from 'three';
-import type { OrbitControls as OrbitControlsImpl } from 'three-stdlib';
 import type { PublicProcedure } from '~/lib/procedure/public-view';
 import type { QuestionModel } from '~/lib/rework/questions';
 import { TrainerContext, useTrainer, useTrainerStore } from '../context';
@@ -12,6 +11,7 @@ import { Holes } from './Holes';
 import { PartMesh } from './PartMesh';
 import { anchorAxis, buildLayout, viewDirection, type HomeView, type SceneLayout } from './layout';
 import { SceneApiHook } from './SceneApi';
+import { Viewport } from './Viewport';
 import { anchorOffset, partFactors, scenePoint, type SceneView } from './points';
 import { type Tone, type Verdict, toneFor } from './tones';
 import { boltLabel, readableKey } from '../labels';
@@ -69,51 +69,21 @@ export default function QuestionScene(props: QuestionSceneProps) {
   const [store] = useState(() => questionStore(procedure, model));
   const layout = useMemo(() => buildLayout(procedure), [procedure]);
   const home = useMemo(() => focusView(procedure, layout, store.getState(), model), [procedure, layout, store, model]);
-  const controls = useRef<OrbitControlsImpl>(null);
-  const distance = home.position.distanceTo(home.target);
-  // Key light from over the learner's shoulder, as in the trainer.
-  const keyLight = useMemo(
-    () => home.position.clone().sub(home.target).normalize().add(new Vector3(0.3, 0.8, 0)).add(home.target).toArray(),
-    [home],
-  );
-
-  const resetView = () => {
-    const c = controls.current;
-    if (!c) return;
-    c.object.position.copy(home.position);
-    c.target.copy(home.target);
-    c.update();
-  };
 
   return (
     <TrainerContext value={store}>
-      <div className="flex flex-col gap-2">
-        <div data-testid="question-scene" className="relative h-[20rem] overflow-hidden rounded-xl border border-steel-200 bg-gradient-to-b from-steel-100 to-steel-300 sm:h-[24rem]">
-          <Canvas
-            frameloop="demand"
-            flat
-            dpr={[1, 1.5]}
-            camera={{ position: home.position.toArray(), fov: home.fov, near: 0.01, far: 20 }}
-            aria-label={`3D view of ${procedure.engine.name} for this question`}
-            onPointerMissed={() => store.getState().setHovered(null)}
-          >
-            <hemisphereLight args={['#ffffff', '#9db3c2', 2]} />
-            <directionalLight position={keyLight} intensity={2} />
-            <OrbitControls ref={controls} makeDefault target={home.target.toArray()} enableDamping={false} minDistance={distance * 0.2} maxDistance={distance * 3} />
-            <Drawn layout={layout} {...props} />
-            <QuestionLabels layout={layout} {...props} />
-            <SceneApiHook layout={layout} />
-          </Canvas>
-        </div>
-        <div className="flex flex-wrap items-center gap-3">
-          <button type="button" className="btn-quiet" onClick={resetView}>
-            Reset view
-          </button>
-          <p className="text-sm text-steel-600">
-            {model.kind === 'bolts' ? 'Click a bolt to choose it; numbers show the order so far.' : model.pickHoles ? 'Click a hole to choose it.' : 'The hole asked about is picked out in brass.'}
-          </p>
-        </div>
-      </div>
+      <Viewport
+        home={home}
+        testId="question-scene"
+        sizeClass="h-[20rem] sm:h-[24rem]"
+        label={`3D view of ${procedure.engine.name} for this question`}
+        hint={model.kind === 'bolts' ? 'Click a bolt to choose it; numbers show the order so far.' : model.pickHoles ? 'Click a hole to choose it.' : 'The hole asked about is picked out in brass.'}
+        onPointerMissed={() => store.getState().setHovered(null)}
+      >
+        <Drawn layout={layout} {...props} />
+        <QuestionLabels layout={layout} {...props} />
+        <SceneApiHook layout={layout} />
+      </Viewport>
     </TrainerContext>
   );
 }

@@ -1,6 +1,7 @@
 import type { APIRoute } from 'astro';
 import { benchPhotoQuerySchema } from '../../../../lib/schemas/sign-offs';
-import { classTaughtBy, isClassLearner } from '../../../../lib/server/class-access';
+import { classTaughtBy } from '../../../../lib/server/class-access';
+import { isClassLearner } from '../../../../lib/server/classes';
 import { db } from '../../../../lib/server/db';
 import { requireRole } from '../../../../lib/server/guard';
 import { jsonError, validationError } from '../../../../lib/server/http';
