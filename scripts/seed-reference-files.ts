@@ -4,7 +4,7 @@ import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import * as schema from '../src/db/schema';
-import { createObjectStore } from '../src/lib/server/object-store';
+import { createObjectStore, storeSettingsFromEnv } from '../src/lib/server/object-store';
 import { demoSpecCard } from './demo-pdf';
 
 type Database = NodePgDatabase<typeof schema>;
@@ -22,13 +22,7 @@ export async function seedReferenceFiles(db: Database, ownerId: string): Promise
     .limit(1);
   if (existing.length) return 'demo reference file already there';
 
-  const store = createObjectStore({
-    endpoint: process.env.S3_ENDPOINT,
-    region: process.env.S3_REGION ?? 'us-east-1',
-    bucket: process.env.S3_BUCKET ?? 'benchwright',
-    accessKeyId: process.env.S3_ACCESS_KEY_ID,
-    secretAccessKey: process.env.S3_SECRET_ACCESS_KEY,
-  });
+  const store = createObjectStore(storeSettingsFromEnv(process.env));
   const pdf = demoSpecCard();
   // The same key prefix the app gives reference files (src/lib/server/uploads.ts).
   const storageKey = `procedure-files/${randomUUID()}`;

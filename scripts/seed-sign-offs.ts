@@ -4,7 +4,7 @@ import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import * as schema from '../src/db/schema';
-import { createObjectStore } from '../src/lib/server/object-store';
+import { createObjectStore, storeSettingsFromEnv } from '../src/lib/server/object-store';
 import { demoBenchPhoto } from './demo-photo';
 
 type Database = NodePgDatabase<typeof schema>;
@@ -23,13 +23,7 @@ export async function seedSignOffs(db: Database, ids: { classId: string; learner
   const [sump] = await db.select({ id: procedures.id }).from(procedures).where(eq(procedures.slug, 'wren-160-sump'));
   if (!sump) throw new Error('the demo sump procedure is missing');
 
-  const store = createObjectStore({
-    endpoint: process.env.S3_ENDPOINT,
-    region: process.env.S3_REGION ?? 'us-east-1',
-    bucket: process.env.S3_BUCKET ?? 'benchwright',
-    accessKeyId: process.env.S3_ACCESS_KEY_ID,
-    secretAccessKey: process.env.S3_SECRET_ACCESS_KEY,
-  });
+  const store = createObjectStore(storeSettingsFromEnv(process.env));
   const photo = demoBenchPhoto();
   const storageKey = `bench-photos/${randomUUID()}`;
   await store.put(storageKey, photo, 'image/png');

@@ -46,3 +46,14 @@ export function createObjectStore(settings: StoreSettings): ObjectStore {
     },
   };
 }
+
+/** Settings from a process environment, for command-line jobs (the app reads astro:env in storage.ts). */
+export function storeSettingsFromEnv(env: NodeJS.ProcessEnv): StoreSettings {
+  return {
+    endpoint: env.S3_ENDPOINT,
+    region: env.S3_REGION ?? 'us-east-1',
+    bucket: env.S3_BUCKET ?? 'benchwright',
+    accessKeyId: env.S3_ACCESS_KEY_ID,
+    secretAccessKey: env.S3_SECRET_ACCESS_KEY,
+  };
+}
