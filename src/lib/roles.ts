@@ -35,7 +35,8 @@ export function navLinksFor(role: Role): { href: string; label: string }[] {
     case 'instructor':
       return [
         { href: '/teach', label: 'My classes' },
-        { href: '/train', label: 'Procedures' },
+        { href: '/teach/procedures', label: 'Procedures' },
+        { href: '/train', label: 'Practise' },
         { href: '/tools/wrench', label: 'Wrench' },
       ];
     case 'admin':
@@ -46,4 +47,10 @@ export function navLinksFor(role: Role): { href: string; label: string }[] {
         { href: '/tools/wrench', label: 'Wrench' },
       ];
   }
+}
+
+/** The link the top bar marks as the current page: the longest one the path is under (/teach/procedures, not /teach). */
+export function currentNavLink(links: readonly { href: string }[], path: string): string | null {
+  const under = links.filter((l) => path === l.href || path.startsWith(l.href + '/'));
+  return under.sort((a, b) => b.href.length - a.href.length)[0]?.href ?? null;
 }
