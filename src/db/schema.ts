@@ -1,4 +1,4 @@
-import { pgTable, pgEnum, text, timestamp, integer, uuid, primaryKey, index, jsonb, boolean, unique, date, real } from 'drizzle-orm/pg-core';
+import { pgTable, pgEnum, text, timestamp, integer, uuid, primaryKey, index, jsonb, boolean, unique, date } from 'drizzle-orm/pg-core';
 import type { AnyPgColumn } from 'drizzle-orm/pg-core';
 import { STAGES, type Procedure } from '../lib/procedure/schema';
 import type { StepResult } from '../lib/scoring/types';
