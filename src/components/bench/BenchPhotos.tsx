@@ -1,4 +1,5 @@
 import { useId, useRef, useState } from 'react';
+import { UploadStatusLine, type UploadStatus } from '../uploads/UploadStatus';
 import { checkSize, formatBytes, type UploadRule } from '../../lib/uploads/check';
 import type { BenchPhotoJson } from '../../lib/uploads/views';
 import { PhotoTile } from './PhotoTile';
@@ -11,12 +12,11 @@ interface Props {
   rule: UploadRule;
 }
 
-type Status = { kind: 'idle' } | { kind: 'uploading'; name: string; index: number; total: number; percent: number } | { kind: 'done'; message: string };
 
 /** The learner's photos of one procedure's finished assembly: upload (with progress), view, delete until attached. */
 export default function BenchPhotos({ procedure, procedureTitle, initial, rule }: Props) {
   const [photos, setPhotos] = useState(initial);
-  const [status, setStatus] = useState<Status>({ kind: 'idle' });
+  const [status, setStatus] = useState<UploadStatus>({ kind: 'idle' });
   const [errors, setErrors] = useState<string[]>([]);
   const [confirming, setConfirming] = useState<string | null>(null);
   const input = useRef<HTMLInputElement>(null);
@@ -92,16 +92,7 @@ export default function BenchPhotos({ procedure, procedureTitle, initial, rule }
         </p>
       </div>
 
-      <div role="status" aria-live="polite" className="mt-2 min-h-6 text-sm font-semibold">
-        {status.kind === 'uploading' && (
-          <span className="flex items-center gap-2 text-steel-700">
-            Uploading {status.total > 1 ? `${status.index} of ${status.total}: ` : ''}
-            {status.name} ({status.percent}%)
-            <progress max={100} value={status.percent} className="h-2 w-32" aria-hidden="true" />
-          </span>
-        )}
-        {status.kind === 'done' && <span className="text-go-700">{status.message}</span>}
-      </div>
+      <UploadStatusLine status={status} />
       {errors.length > 0 && (
         <ul role="alert" className="mt-1 space-y-1 text-sm font-medium text-signal-700">
           {errors.map((e) => (

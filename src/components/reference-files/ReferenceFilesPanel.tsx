@@ -1,4 +1,5 @@
 import { useEffect, useId, useRef, useState } from 'react';
+import { UploadStatusLine, type UploadStatus } from '../uploads/UploadStatus';
 import { checkSize, formatBytes, type UploadRule } from '../../lib/uploads/check';
 import { fileKindLabel, uploadUrl, type ReferenceFileJson } from '../../lib/uploads/views';
 import { uploadFile } from '../uploads/upload-file';
@@ -12,10 +13,6 @@ interface Props {
   max: number;
 }
 
-type Status =
-  | { kind: 'idle' }
-  | { kind: 'uploading'; name: string; index: number; total: number; percent: number }
-  | { kind: 'done'; message: string };
 
 /**
  * A procedure's reference files for those who may edit it: attach photos or PDFs (with progress), open them,
@@ -23,7 +20,7 @@ type Status =
  */
 export default function ReferenceFilesPanel({ procedure, procedureTitle, initial, rule, max }: Props) {
   const [files, setFiles] = useState(initial);
-  const [status, setStatus] = useState<Status>({ kind: 'idle' });
+  const [status, setStatus] = useState<UploadStatus>({ kind: 'idle' });
   const [errors, setErrors] = useState<string[]>([]);
   const [confirming, setConfirming] = useState<string | null>(null);
   // Where keyboard focus goes after a confirmation closes: back to the row's button, or the heading once the row is gone.
@@ -123,16 +120,7 @@ export default function ReferenceFilesPanel({ procedure, procedureTitle, initial
         </p>
       </div>
 
-      <div role="status" aria-live="polite" className="mt-2 min-h-6 text-sm font-semibold">
-        {status.kind === 'uploading' && (
-          <span className="flex items-center gap-2 text-steel-700">
-            Uploading {status.total > 1 ? `${status.index} of ${status.total}: ` : ''}
-            {status.name} ({status.percent}%)
-            <progress max={100} value={status.percent} className="h-2 w-32" aria-hidden="true" />
-          </span>
-        )}
-        {status.kind === 'done' && <span className="text-go-700">{status.message}</span>}
-      </div>
+      <UploadStatusLine status={status} />
       <ul id={`${id}-errors`} role="alert" className="mt-1 space-y-1 text-sm font-medium text-signal-700">
         {errors.map((e) => (
           <li key={e} className="flex items-start gap-1">
