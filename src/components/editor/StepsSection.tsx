@@ -1,9 +1,7 @@
 import { useEffect, useRef, useState } from 'react';
 import { Controller, useFieldArray, useFormContext, useWatch } from 'react-hook-form';
-import {
-  DndContext, KeyboardSensor, PointerSensor, TouchSensor, closestCenter, useSensor, useSensors, type Announcements, type DragEndEvent,
-} from '@dnd-kit/core';
-import { SortableContext, sortableKeyboardCoordinates, useSortable, verticalListSortingStrategy } from '@dnd-kit/sortable';
+import { DndContext, closestCenter, type DragEndEvent } from '@dnd-kit/core';
+import { SortableContext, useSortable, verticalListSortingStrategy } from '@dnd-kit/sortable';
 import { CSS } from '@dnd-kit/utilities';
 import { applyMarks, marksFromSteps, moveItem } from '../../lib/editor/ordering';
 import { newStepKey } from '../../lib/editor/keys';
@@ -11,6 +9,7 @@ import type { EditorValues } from '../../lib/editor/values';
 import { FieldIssue, useIssueProps } from './FieldIssue';
 import { PrecedenceGraph } from './PrecedenceGraph';
 import { Section } from './Section';
+import { stepListAnnouncements, useStepListSensors } from '../step-list-dnd';
 
 // Steps as learners read them, in order. Drag a step (or use the buttons, or pick it up with Space and move
 // it with the arrows); mark a step that may come in any order with the one before it. The list and marks are
@@ -75,11 +74,7 @@ export function StepsSection() {
     rewrite(anyOrder);
   };
 
-  const sensors = useSensors(
-    useSensor(PointerSensor, { activationConstraint: { distance: 6 } }),
-    useSensor(TouchSensor, { activationConstraint: { delay: 150, tolerance: 8 } }),
-    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
-  );
+  const sensors = useStepListSensors();
   const onDragEnd = ({ active, over }: DragEndEvent) => {
     if (!over || active.id === over.id) return;
     const from = fields.findIndex((f) => f.id === active.id);
@@ -92,12 +87,7 @@ export function StepsSection() {
     const key = fields.find((f) => f.id === id)?.key;
     return getValues('steps').find((s) => s.key === key)?.text || 'a step with no text yet';
   };
-  const announcements: Announcements = {
-    onDragStart: ({ active }) => `Picked up step ${position(active.id)}: ${short(active.id)}`,
-    onDragOver: ({ active, over }) => (over ? `Step ${position(active.id)} is over position ${position(over.id)}` : 'Not over the list'),
-    onDragEnd: ({ active, over }) => (over ? `Dropped at position ${position(over.id)}: ${short(active.id)}` : 'Dropped where it was'),
-    onDragCancel: ({ active }) => `Put back: ${short(active.id)}`,
-  };
+  const announcements = stepListAnnouncements(position, short);
 
   return (
     <Section

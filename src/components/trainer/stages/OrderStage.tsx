@@ -1,12 +1,10 @@
 import { useEffect, useRef, useState } from 'react';
-import {
-  DndContext, KeyboardSensor, PointerSensor, TouchSensor, closestCenter, useSensor, useSensors,
-  type Announcements, type DragEndEvent,
-} from '@dnd-kit/core';
-import { SortableContext, sortableKeyboardCoordinates, useSortable, verticalListSortingStrategy } from '@dnd-kit/sortable';
+import { DndContext, closestCenter, type DragEndEvent } from '@dnd-kit/core';
+import { SortableContext, useSortable, verticalListSortingStrategy } from '@dnd-kit/sortable';
 import { CSS } from '@dnd-kit/utilities';
 import type { PublicStep } from '../../../lib/procedure/public-view';
 import { useTrainer } from '../context';
+import { stepListAnnouncements, useStepListSensors } from '../../step-list-dnd';
 
 // Order: take steps from the pile one by one, then fix the order by drag, by keyboard (the handle
 // picks up with Space and moves with the arrows) or with the move buttons.
@@ -60,11 +58,7 @@ export default function OrderStage() {
     setFocus(next ? { key: next, action: 'remove' } : { key: 'heading', action: 'pile' });
   };
 
-  const sensors = useSensors(
-    useSensor(PointerSensor, { activationConstraint: { distance: 6 } }),
-    useSensor(TouchSensor, { activationConstraint: { delay: 150, tolerance: 8 } }),
-    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
-  );
+  const sensors = useStepListSensors();
   const onDragEnd = ({ active, over }: DragEndEvent) => {
     if (!over || active.id === over.id) return;
     const from = sequence.indexOf(String(active.id));
@@ -73,12 +67,7 @@ export default function OrderStage() {
   };
   const position = (id: string | number) => sequence.indexOf(String(id)) + 1;
   const short = (id: string | number) => byKey.get(String(id))?.text ?? String(id);
-  const announcements: Announcements = {
-    onDragStart: ({ active }) => `Picked up step ${position(active.id)}: ${short(active.id)}`,
-    onDragOver: ({ active, over }) => (over ? `Step ${short(active.id)} is over position ${position(over.id)}` : 'Not over the list'),
-    onDragEnd: ({ active, over }) => (over ? `Dropped at position ${position(over.id)}: ${short(active.id)}` : 'Dropped where it was'),
-    onDragCancel: ({ active }) => `Put back: ${short(active.id)}`,
-  };
+  const announcements = stepListAnnouncements(position, short);
 
   return (
     <div className="space-y-6">
