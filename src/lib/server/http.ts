@@ -49,16 +49,27 @@ export type BodyWithin =
   | { kind: 'read'; bytes: Uint8Array<ArrayBuffer> }
   /** No body at all. */
   | { kind: 'absent' }
-  /** Over the limit: `announced` when the Content-Length said so and nothing was read. */
-  | { kind: 'over'; announced: boolean };
+  /**
+   * Over the limit. `announced`: the Content-Length said so and nothing was read. `drained`: the rest of
+   * a body of no announced length was read and thrown away, so the connection can carry the answer.
+   */
+  | { kind: 'over'; announced: boolean; drained: boolean };
+
+/**
+ * How much of an oversized body of no announced length is read and discarded after the limit. A socket
+ * closed with bytes still unread is reset, and the reset can wipe the answer before the sender reads it;
+ * reading the rest (never keeping it) lets a client that is still sending see its 413. Past this much
+ * more, the sender is not an ordinary form and the connection is cut.
+ */
+export const DRAIN_BYTES = 32 * 1024 * 1024;
 
 /**
  * The body's bytes, at most maxBytes. A Content-Length over the limit is refused before a byte is read,
  * and the bytes are counted as they arrive (a chunked body has no length), so an oversized body is
  * never buffered whole. Throws when the stream fails.
  */
-export async function readBodyWithin(request: Request, maxBytes: number): Promise<BodyWithin> {
-  if (Number(request.headers.get('content-length') ?? 0) > maxBytes) return { kind: 'over', announced: true };
+export async function readBodyWithin(request: Request, maxBytes: number, drainBytes = DRAIN_BYTES): Promise<BodyWithin> {
+  if (Number(request.headers.get('content-length') ?? 0) > maxBytes) return { kind: 'over', announced: true, drained: false };
   const reader = request.body?.getReader();
   if (!reader) return { kind: 'absent' };
   const chunks: Uint8Array[] = [];
@@ -67,10 +78,7 @@ export async function readBodyWithin(request: Request, maxBytes: number): Promis
     const { done, value } = await reader.read();
     if (done) break;
     size += value.byteLength;
-    if (size > maxBytes) {
-      await reader.cancel();
-      return { kind: 'over', announced: false };
-    }
+    if (size > maxBytes) return { kind: 'over', announced: false, drained: await discardRest(reader, drainBytes - (size - maxBytes)) };
     chunks.push(value);
   }
   const bytes = new Uint8Array(size);
@@ -80,6 +88,18 @@ export async function readBodyWithin(request: Request, maxBytes: number): Promis
     offset += chunk.byteLength;
   }
   return { kind: 'read', bytes };
+}
+
+/** Reads and drops the rest of a stream, at most `budget` bytes; true when it ended within them. */
+async function discardRest(reader: ReadableStreamDefaultReader<Uint8Array>, budget: number): Promise<boolean> {
+  let left = budget;
+  while (left >= 0) {
+    const { done, value } = await reader.read();
+    if (done) return true;
+    left -= value.byteLength;
+  }
+  await reader.cancel();
+  return false;
 }
 
 /** ?version=N: undefined when absent (the latest), null when it is not a whole number from 1. */

@@ -17,8 +17,12 @@ export async function readMultipartWithin(request: Request, maxBytes: number, to
   } catch {
     return { ok: false, response: jsonError(400, 'The upload was interrupted; try again') };
   }
-  // Announced: not a byte is buffered; Node discards the announced body, so the browser gets to read this answer.
-  if (body.kind === 'over') return { ok: false, response: body.announced ? jsonError(413, tooLarge, { file: [tooLarge] }) : refuseAndClose(tooLarge) };
+  // Announced, Node discards the body it announced; unannounced, the rest was read and dropped. Either way the
+  // sender gets to read this answer. Only a body too long even to drain leaves unread bytes behind.
+  if (body.kind === 'over') {
+    const refused = jsonError(413, tooLarge, { file: [tooLarge] });
+    return { ok: false, response: body.announced || body.drained ? refused : closing(refused) };
+  }
   if (body.kind === 'absent') return { ok: false, response: jsonError(400, 'The form is empty', { file: ['Choose a file'] }) };
   try {
     const form = await new Response(body.bytes, { headers: { 'content-type': type } }).formData();
@@ -29,11 +33,10 @@ export async function readMultipartWithin(request: Request, maxBytes: number, to
 }
 
 /**
- * 413 for a body of no announced length, cut off while reading: the rest is never read, so the socket
- * must not carry another request (a kept-alive one would wait on bytes nobody reads).
+ * A body cut off while reading leaves bytes nobody will read, so its socket must not carry another
+ * request (a kept-alive one would wait on them).
  */
-function refuseAndClose(tooLarge: string): Response {
-  const response = jsonError(413, tooLarge, { file: [tooLarge] });
+function closing(response: Response): Response {
   response.headers.set('connection', 'close');
   return response;
 }
