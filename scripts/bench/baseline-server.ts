@@ -6,9 +6,12 @@ import { attemptRequestSchema } from '../../src/lib/schemas/attempts';
 import { scoreAttempt } from '../../src/lib/scoring';
 import { attemptJson, attemptRow, createdAttempt } from '../../src/lib/server/attempt-row';
 import { findVersion } from '../../src/lib/server/procedure-store';
+import { queueMisses } from '../../src/lib/server/rework-queue';
 
 // Baseline for POST /api/attempts without Astro, sessions or the clientId pre-check: read the JSON,
-// validate it, look the version up, score, insert the same row. Run as a child of the benchmark.
+// validate it, look the version up, score, insert the same row and queue its misses for rework with the
+// app's own writer, so both servers do the same database work and the ratio measures what the app adds.
+// Run as a child of the benchmark.
 
 const { DATABASE_URL, PORT, BENCH_USER_ID } = process.env;
 if (!DATABASE_URL || !PORT || !BENCH_USER_ID) {
@@ -57,6 +60,7 @@ async function postAttempt(req: IncomingMessage, res: ServerResponse): Promise<v
     .onConflictDoNothing({ target: [attempts.userId, attempts.clientId] })
     .returning({ id: attempts.id, createdAt: attempts.createdAt });
   if (!row) return send(res, 409, { error: 'This clientId was already used' });
+  await queueMisses(db, { userId, attemptId: row.id, procedureVersionId: stored.id, document: stored.document, stage: input.stage, results: score.results, at: row.createdAt });
   send(res, 201, attemptJson(createdAttempt(userId, input, stored, score, row)));
 }
 
