@@ -1,4 +1,5 @@
 import { pgTable, pgEnum, text, timestamp, integer, uuid, primaryKey, index, jsonb, boolean, unique, date } from 'drizzle-orm/pg-core';
+import { sql } from 'drizzle-orm';
 import type { AnyPgColumn } from 'drizzle-orm/pg-core';
 import { STAGES, type Procedure } from '../lib/procedure/schema';
 import type { StepResult } from '../lib/scoring/types';
@@ -138,12 +139,16 @@ export const attempts = pgTable(
     passed: boolean('passed').notNull(),
     results: jsonb('results').$type<StepResult[]>().notNull(),
     notes: jsonb('notes').$type<string[]>().notNull().default([]),
+    /** Failed lines not yet in the rework queue: set on insert, cleared once they are queued. */
+    reworkPending: boolean('rework_pending').notNull().default(false),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     unique('attempts_user_client_uq').on(t.userId, t.clientId),
     index('attempts_user_created_idx').on(t.userId, t.createdAt),
     index('attempts_drill_user_idx').on(t.drillId, t.userId),
+    // Almost always empty: only attempts whose queueing failed (or is under way) are in it.
+    index('attempts_rework_pending_idx').on(t.userId, t.createdAt).where(sql`${t.reworkPending}`),
   ],
 );
 

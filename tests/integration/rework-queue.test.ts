@@ -8,7 +8,7 @@ import { correctAnswer } from '../../src/lib/procedure/reference-answers';
 import { queueMisses, type MissedAttempt } from '../../src/lib/server/rework-queue';
 import { fromStored, review, toStored } from '../../src/lib/rework/schedule';
 import { Rating, State } from 'ts-fsrs';
-import { newLearner } from './helpers/client';
+import { type Client, newLearner } from './helpers/client';
 import { demoProcedure } from '../support/demo-procedures';
 
 // The queue writer on its own, with as many connections as the app's pool, so parallel writers for one
@@ -29,10 +29,12 @@ const twoMisses = {
 
 let base: Omit<MissedAttempt, 'at'>;
 let userId: string;
+let learner: Client;
 
 beforeAll(async () => {
   const { client, user } = await newLearner('queue');
   userId = user.id;
+  learner = client;
   const res = await client.post('/api/attempts', { procedure: 'wren-160-sump', stage: 'pattern', answer: twoMisses, clientId: randomUUID() });
   expect(res.status).toBe(201);
   const [row] = await db.select({ versionId: attempts.procedureVersionId }).from(attempts).where(eq(attempts.id, res.body.id));
@@ -40,6 +42,9 @@ beforeAll(async () => {
   // The attempt itself queued its two misses.
   await db.delete(reworkItems).where(eq(reworkItems.userId, userId));
 });
+
+const pendingOf = async (attemptId: string) =>
+  (await db.select({ pending: attempts.reworkPending }).from(attempts).where(eq(attempts.id, attemptId)))[0]!.pending;
 
 const itemsOf = () => db.select().from(reworkItems).where(eq(reworkItems.userId, userId)).orderBy(reworkItems.itemKey);
 
@@ -96,6 +101,38 @@ describe('queueMisses', () => {
     expect(fromStored(after!.card as never)).toMatchObject({ state: State.Learning, reps: 2, last_review: new Date(t0 + 60_000) });
     expect(after!.missCount).toBe(2);
     expect(after!.lastMissedAt.getTime()).toBe(t0 + 60_000);
+  });
+});
+
+describe('a miss whose queueing failed is not lost', () => {
+  it('an attempt is marked pending only while failed lines wait for the queue', async () => {
+    const missed = await learner.post('/api/attempts', { procedure: 'wren-160-sump', stage: 'pattern', answer: twoMisses, clientId: randomUUID() });
+    const right = await learner.post('/api/attempts', { procedure: 'wren-160-sump', stage: 'pattern', answer: reference, clientId: randomUUID() });
+    expect([missed.status, right.status]).toEqual([201, 201]);
+    expect(await pendingOf(missed.body.id)).toBe(false);
+    expect(await pendingOf(right.body.id)).toBe(false);
+  });
+
+  it("the learner's next look at their rework queues what a fault left, once", async () => {
+    const res = await learner.post('/api/attempts', { procedure: 'wren-160-sump', stage: 'pattern', answer: twoMisses, clientId: randomUUID() });
+    expect(res.status).toBe(201);
+    // The state a database fault between the attempt and its queueing leaves: the attempt stored and
+    // still pending, its items never written.
+    await db.delete(reworkItems).where(eq(reworkItems.userId, userId));
+    await db.update(attempts).set({ reworkPending: true }).where(eq(attempts.id, res.body.id));
+
+    const first = await learner.get('/api/me/rework');
+    expect(first.status).toBe(200);
+    const keys = first.body.due.map((item: { itemKey: string; missCount: number }) => [item.itemKey, item.missCount]);
+    expect(keys.sort()).toEqual([['pass-1', 1], ['pass-2-torque', 1]]);
+    expect(await pendingOf(res.body.id)).toBe(false);
+    const [row] = await itemsOf();
+    expect(row!.sourceAttemptId).toBe(res.body.id);
+
+    // Marked again by hand, it is queued again but counted once: the items already hold this miss.
+    await db.update(attempts).set({ reworkPending: true }).where(eq(attempts.id, res.body.id));
+    const second = await learner.get('/api/me/rework');
+    expect(second.body.due.map((item: { missCount: number }) => item.missCount)).toEqual([1, 1]);
   });
 });
 

@@ -41,6 +41,8 @@ export function attemptRow(
     passed: score.passed,
     results: score.results,
     notes: score.notes ?? [],
+    // Cleared by the rework queue once the failed lines are in it; a learner's next visit queues what a fault left.
+    reworkPending: score.results.some((line) => !line.ok),
   };
 }
 

@@ -1,6 +1,7 @@
 import { asc, eq } from 'drizzle-orm';
 import { db } from './db';
 import { attempts, procedures, procedureVersions, reworkAnswers, reworkItems } from '../../db/schema';
+import { catchUpMisses } from './rework';
 import { STAGES, type Stage } from '../procedure/schema';
 import { fromStored } from '../rework/schedule';
 import { standingOf, streakOf, dayIn, type ItemStanding, type Streak } from '../rework/progress';
@@ -35,6 +36,7 @@ export interface Progress {
 const emptyCounts = (): Record<ItemStanding, number> => ({ mastered: 0, due: 0, learning: 0 });
 
 export async function progressOf(learnerId: string, timeZone: string, now = new Date()): Promise<Progress> {
+  await catchUpMisses(learnerId);
   const [attemptRows, itemRows, answerRows] = await Promise.all([
     db
       .select({

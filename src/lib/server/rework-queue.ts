@@ -1,4 +1,4 @@
-import { and, eq, inArray, sql } from 'drizzle-orm';
+import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import * as schema from '../../db/schema';
 import type { Procedure, Stage } from '../procedure/schema';
@@ -9,7 +9,7 @@ import { fromStored, newCard, refreshAfterMiss, toStored } from '../rework/sched
 // The rework queue's writer, on any database handle: the app passes its own (rework.ts), the demo seed
 // its script's, so the demo's misses are queued by the same code as a learner's.
 
-const { reworkItems } = schema;
+const { attempts, procedureVersions, reworkItems } = schema;
 type Database = NodePgDatabase<typeof schema>;
 
 export interface MissedAttempt {
@@ -27,8 +27,8 @@ export interface MissedAttempt {
  * Queues every step the attempt missed: a new item, or a refresh of the learner's item for that step
  * (one more miss, back on the schedule soon). Runs after the attempt row is stored and outside its
  * insert: the attempt is the learner's record and must never be lost to a fault here, while the queue is
- * derived from attempts and can be rebuilt, so a failure is logged and the attempt still answers 201.
- * Running it twice for one attempt counts the miss once.
+ * derived from attempts: a failure is logged, the attempt still answers 201 and stays marked pending until
+ * queueLeftoverMisses queues it. Running it twice for one attempt counts the miss once.
  */
 export async function queueMisses(database: Database, attempt: MissedAttempt): Promise<void> {
   let pending = missesOf(attempt.document, attempt.stage, attempt.results);
@@ -36,6 +36,26 @@ export async function queueMisses(database: Database, attempt: MissedAttempt): P
     if (round === MAX_ROUNDS) throw new Error(`rework items of attempt ${attempt.attemptId} kept changing under it: ${pending.map((m) => m.itemKey).join(', ')}`);
     pending = await queueRound(database, attempt, pending);
   }
+  await database.update(attempts).set({ reworkPending: false }).where(and(eq(attempts.id, attempt.attemptId), eq(attempts.reworkPending, true)));
+}
+
+/**
+ * Queues the misses of the learner's attempts still marked pending, oldest first: those whose queueing
+ * failed after they were stored (a database fault) or is still under way (queueing twice counts once).
+ * Called when the learner's rework is read, so no miss stays lost. At most `limit` attempts a call.
+ */
+export async function queueLeftoverMisses(database: Database, userId: string, limit = 50): Promise<number> {
+  const left = await database
+    .select({ id: attempts.id, versionId: attempts.procedureVersionId, document: procedureVersions.document, stage: attempts.stage, results: attempts.results, at: attempts.createdAt })
+    .from(attempts)
+    .innerJoin(procedureVersions, eq(procedureVersions.id, attempts.procedureVersionId))
+    .where(and(eq(attempts.userId, userId), eq(attempts.reworkPending, true)))
+    .orderBy(asc(attempts.createdAt))
+    .limit(limit);
+  for (const row of left) {
+    await queueMisses(database, { userId, attemptId: row.id, procedureVersionId: row.versionId, document: row.document, stage: row.stage, results: row.results, at: row.at });
+  }
+  return left.length;
 }
 
 // Each round either lands a miss or sees another writer change its item; only that learner's own

@@ -7,19 +7,31 @@ import { buildQuestion, type Question } from '../rework/questions';
 import { fromStored } from '../rework/schedule';
 import { variantFor } from '../rework/variant';
 import { itemLabel, MISS_WORDS } from '../rework/labels';
-import { queueMisses, type MissedAttempt } from './rework-queue';
+import { queueLeftoverMisses, queueMisses, type MissedAttempt } from './rework-queue';
 
 // Rework items: the steps a learner missed, kept on a spaced schedule. Misses come in from scored
 // attempts; the list is what GET /api/me/rework answers.
 
 export type { MissedAttempt } from './rework-queue';
 
-/** Queues the attempt's misses (see queueMisses); a fault is logged and the attempt still answers 201. */
+/**
+ * Queues the attempt's misses (see queueMisses); a fault is logged and the attempt still answers 201.
+ * The attempt stays marked pending, so the learner's next look at their rework queues it (catchUpMisses).
+ */
 export async function recordMisses(attempt: MissedAttempt): Promise<void> {
   try {
     await queueMisses(db, attempt);
   } catch (error) {
-    console.error(`rework: misses of attempt ${attempt.attemptId} were not queued`, error);
+    console.error(`rework: misses of attempt ${attempt.attemptId} were not queued; they will be on the learner's next visit`, error);
+  }
+}
+
+/** Before the learner's items are read: queue what a fault left pending. A failure here only logs; the page shows what is stored. */
+export async function catchUpMisses(userId: string): Promise<void> {
+  try {
+    await queueLeftoverMisses(db, userId);
+  } catch (error) {
+    console.error(`rework: left-over misses of learner ${userId} could not be queued`, error);
   }
 }
 
@@ -43,6 +55,7 @@ export interface ReworkItemView {
 
 /** The learner's items, soonest first: due now (with their questions) and coming later. */
 export async function reworkFor(userId: string, now: Date): Promise<{ due: ReworkItemView[]; upcoming: ReworkItemView[] }> {
+  await catchUpMisses(userId);
   const rows = await db
     .select({
       id: reworkItems.id,
@@ -102,6 +115,7 @@ export async function reworkFor(userId: string, now: Date): Promise<{ due: Rewor
 
 /** How many of the learner's items are due now and how many in all (the /learn card). */
 export async function reworkCounts(userId: string, now: Date): Promise<{ due: number; total: number }> {
+  await catchUpMisses(userId);
   const [row] = await db
     .select({
       due: sql<number>`count(*) filter (where ${reworkItems.due} <= ${now})::int`,

@@ -1,0 +1,2 @@
+ALTER TABLE "attempts" ADD COLUMN "rework_pending" boolean DEFAULT false NOT NULL;--> statement-breakpoint
+CREATE INDEX "attempts_rework_pending_idx" ON "attempts" USING btree ("user_id","created_at") WHERE "attempts"."rework_pending";
