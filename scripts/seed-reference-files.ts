@@ -11,6 +11,7 @@ type Database = NodePgDatabase<typeof schema>;
 const { procedures, uploads } = schema;
 
 export const DEMO_SPEC_CARD_NAME = 'wren-160-sump-spec-card.pdf';
+export const DEMO_SPEC_CARD_CAPTION = 'Sump cover spec card: bolt torque and tightening order';
 
 export async function seedReferenceFiles(db: Database, ownerId: string): Promise<string> {
   const [sump] = await db.select({ id: procedures.id }).from(procedures).where(eq(procedures.slug, 'wren-160-sump'));
@@ -35,6 +36,7 @@ export async function seedReferenceFiles(db: Database, ownerId: string): Promise
     contentType: 'application/pdf',
     sizeBytes: pdf.byteLength,
     originalName: DEMO_SPEC_CARD_NAME,
+    caption: DEMO_SPEC_CARD_CAPTION,
   });
   return `demo reference file ${DEMO_SPEC_CARD_NAME} attached to wren-160-sump`;
 }

@@ -266,6 +266,8 @@ export const uploads = pgTable(
     contentType: text('content_type').notNull(),
     sizeBytes: integer('size_bytes').notNull(),
     originalName: text('original_name').notNull(),
+    /** A reference file's words for learners (what it shows); the file name stands in without one. */
+    caption: text('caption'),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index('uploads_owner_procedure_idx').on(t.ownerId, t.procedureId)],

@@ -5,8 +5,8 @@ import { demoBenchPhoto } from '../../scripts/demo-photo';
 import { coverProcedure } from '../support/cover-procedure';
 import { islandsReady, shot, signIn, signOut } from './helpers';
 
-// An instructor attaches a spec sheet (PDF) and a photo to a procedure they created; a learner finds both
-// beside the cautions on the trainer page, and the PDF opens as a PDF.
+// An instructor attaches a spec sheet (PDF) and a photo to a procedure they created and captions the PDF; a
+// learner finds both beside the cautions on the trainer page, the PDF under its caption, and it opens as a PDF.
 
 /** Publishes the cover job as the signed-in instructor's own procedure, through the editor's routes. */
 async function publishOwnProcedure(page: Page, title: string): Promise<string> {
@@ -61,6 +61,19 @@ test('an instructor attaches a PDF and a photo to their procedure; a learner ope
   await expect(rows.nth(1)).toContainText('cover-fitted.png');
   await expect(rows.nth(1)).toContainText('Photo');
 
+  // The PDF gets a caption in the class's words: the field takes focus, Enter saves, focus comes back.
+  const caption = 'Cover spec sheet: torque and order';
+  await expect(rows.nth(0)).toContainText('No caption: learners see the file name.');
+  await panel.getByRole('button', { name: `Edit the caption of ${pdfName}` }).click();
+  const captionField = panel.getByLabel(`Caption for ${pdfName}`);
+  await expect(captionField).toBeFocused();
+  await captionField.fill(caption);
+  await shot(page, 'procedure-files-caption');
+  await page.keyboard.press('Enter');
+  await expect(panel.getByRole('status')).toContainText(`Caption of ${pdfName} saved`);
+  await expect(rows.nth(0)).toContainText(`Caption: ${caption}`);
+  await expect(panel.getByRole('button', { name: `Edit the caption of ${pdfName}` })).toBeFocused();
+
   // A third file, removed again by keyboard: the confirmation takes focus, Enter deletes.
   await input.setInputFiles({ name: 'wrong-photo.png', mimeType: 'image/png', buffer: Buffer.from(demoBenchPhoto()) });
   await expect(rows).toHaveCount(3);
@@ -92,13 +105,13 @@ test('an instructor attaches a PDF and a photo to their procedure; a learner ope
   await expect(files.getByRole('heading', { name: 'Reference files' })).toBeVisible();
   const listed = files.getByTestId('reference-file');
   await expect(listed).toHaveCount(2);
-  await expect(listed.nth(0)).toContainText(`${pdfName} (opens in a new tab)`);
-  await expect(listed.nth(0)).toContainText(`PDF · ${pdf.byteLength} bytes`);
+  await expect(listed.nth(0)).toContainText(`${caption} (opens in a new tab)`);
+  await expect(listed.nth(0)).toContainText(`PDF · ${pdf.byteLength} bytes · ${pdfName}`);
   await expect(listed.nth(1)).toContainText('cover-fitted.png');
   await expect(listed.nth(1)).toContainText('Photo ·');
   await shot(page, 'procedure-files-trainer');
 
-  const pdfLink = files.getByRole('link', { name: `${pdfName} (opens in a new tab)` });
+  const pdfLink = files.getByRole('link', { name: `${caption} (opens in a new tab)` });
   await expect(pdfLink).toHaveAttribute('target', '_blank');
   const href = (await pdfLink.getAttribute('href'))!;
   const opened = await page.request.get(href);

@@ -60,6 +60,7 @@ describe('attaching a reference file', () => {
       id: expect.any(String),
       procedure: slug,
       originalName: 'cover spec.pdf',
+      caption: null,
       contentType: 'application/pdf',
       sizeBytes: bytes.byteLength,
       createdAt: expect.any(String),
@@ -179,6 +180,68 @@ describe('DELETE /api/uploads/:id for a reference file', () => {
   });
 });
 
+describe('captions', () => {
+  it('a file may be attached with a caption; a bench photo may not carry one', async () => {
+    const form = referenceForm(pdfBytes('captioned'), 'torque-card.pdf');
+    form.set('caption', '  Cover torque card  ');
+    const res = await editor.client.postForm('/api/uploads', form);
+    expect(res.status).toBe(201);
+    expect(res.body.caption).toBe('Cover torque card');
+
+    const photo = photoForm(pngBytes(), 'cover.png', 'wren-160-sump');
+    photo.set('caption', 'My cover');
+    const refused = await learner.client.postForm('/api/uploads', photo);
+    expect(refused.status).toBe(400);
+    expect(refused.body.fields.caption).toEqual(['Only a reference file takes a caption']);
+  });
+
+  it("the procedure's editors set and clear a caption; everyone else is refused and nothing changes", async () => {
+    const made = await editor.client.postForm('/api/uploads', referenceForm(pdfBytes('to caption'), 'plain-name.pdf'));
+    const path = `/api/uploads/${made.body.id}`;
+    const set = await editor.client.patch(path, { caption: 'Flange bolt torque, two passes' });
+    expect(set.status).toBe(200);
+    expect(set.body).toMatchObject({ id: made.body.id, originalName: 'plain-name.pdf', caption: 'Flange bolt torque, two passes' });
+
+    expect((await otherInstructor.client.patch(path, { caption: 'Mine now' })).status).toBe(403);
+    expect((await learner.client.patch(path, { caption: 'Mine now' })).status).toBe(403);
+    expect((await new Client().patch(path, { caption: 'Mine now' })).status).toBe(401);
+    const listed = (await learner.client.get(`/api/procedures/${slug}/files`)).body.find((f: { id: string }) => f.id === made.body.id);
+    expect(listed.caption).toBe('Flange bolt torque, two passes');
+
+    // An admin may caption it too; blank clears it, as does null.
+    expect((await admin.client.patch(path, { caption: '   ' })).body.caption).toBeNull();
+    expect((await editor.client.patch(path, { caption: 'Back again' })).body.caption).toBe('Back again');
+    expect((await editor.client.patch(path, { caption: null })).body.caption).toBeNull();
+  });
+
+  it('400 for a caption too long, not text, or an unknown field, without touching the stored one; 404 for no such file', async () => {
+    const made = await editor.client.postForm('/api/uploads', referenceForm(pdfBytes('kept caption'), 'kept.pdf'));
+    const path = `/api/uploads/${made.body.id}`;
+    await editor.client.patch(path, { caption: 'Kept' });
+    const long = await editor.client.patch(path, { caption: 'x'.repeat(121) });
+    expect(long.status).toBe(400);
+    expect(long.body.fields.caption).toEqual(['A caption is at most 120 characters']);
+    const number = await editor.client.patch(path, { caption: 7 });
+    expect(number.status).toBe(400);
+    expect(number.body.fields.caption).toEqual(['A caption is text']);
+    expect((await editor.client.patch(path, { caption: 'x', name: 'y' })).status).toBe(400);
+    expect((await editor.client.patch(path, {})).status).toBe(400);
+    const [row] = await database.db.select({ caption: uploads.caption }).from(uploads).where(eq(uploads.id, made.body.id));
+    expect(row!.caption).toBe('Kept');
+    expect((await editor.client.patch('/api/uploads/00000000-0000-4000-8000-000000000000', { caption: 'x' })).status).toBe(404);
+  });
+
+  it("a bench photo takes no caption, and stays hidden from whoever may not see it", async () => {
+    const world = await benchWorld();
+    const photo = await world.owner.client.postForm('/api/uploads', photoForm(pngBytes()));
+    expect(photo.status).toBe(201);
+    const own = await world.owner.client.patch(`/api/uploads/${photo.body.id}`, { caption: 'My cover' });
+    expect(own.status).toBe(400);
+    expect(own.body.error).toBe('Only a reference file takes a caption');
+    expect((await learner.client.patch(`/api/uploads/${photo.body.id}`, { caption: 'x' })).status).toBe(404);
+  });
+});
+
 describe('a cap per procedure', () => {
   it('keeps at most 20 files; the 21st is 409 until one is deleted', async () => {
     const { slug: capped } = await publishOwnProcedure(editor.client, 'a cap');
@@ -246,6 +309,12 @@ describe('pages', () => {
     expect(html).toContain(`href="/api/uploads/${made.body.id}" target="_blank" rel="noopener"`);
     expect(html).toContain('cover-spec.pdf');
     expect(html).toContain(`PDF</span> · ${formatBytes(made.body.sizeBytes)} ·`);
+
+    // With a caption, the link reads the caption and the file name moves to the line below.
+    await editor.client.patch(`/api/uploads/${made.body.id}`, { caption: 'Cover bolt card' });
+    const captioned = (await learner.client.get(`/train/${shown}`)).body as string;
+    expect(captioned).toMatch(/target="_blank" rel="noopener"[^>]*>\s*Cover bolt card\s*<span class="sr-only">/);
+    expect(captioned).toContain('cover-spec.pdf');
   });
 
   it('the files page is for the procedure’s editors only', async () => {

@@ -3,6 +3,7 @@ import { UploadStatusLine, type UploadStatus } from '../uploads/UploadStatus';
 import { checkSize, formatBytes, type UploadRule } from '../../lib/uploads/check';
 import { fileKindLabel, uploadUrl, type ReferenceFileJson } from '../../lib/uploads/views';
 import { uploadFile } from '../uploads/upload-file';
+import { CaptionEditor } from './CaptionEditor';
 
 interface Props {
   procedure: string;
@@ -135,7 +136,7 @@ export default function ReferenceFilesPanel({ procedure, procedureTitle, initial
         <ul className="mt-3 divide-y divide-steel-100" aria-label={`Reference files of ${procedureTitle}`}>
           {files.map((file) => (
             <li key={file.id} className="flex flex-wrap items-center justify-between gap-3 py-2" data-testid="reference-file">
-              <div className="min-w-0">
+              <div className="min-w-0 flex-1">
                 <a href={uploadUrl(file.id)} target="_blank" rel="noopener" className="break-all font-semibold underline decoration-brass-400 underline-offset-4">
                   {file.originalName}
                   <span className="sr-only"> (opens in a new tab)</span>
@@ -143,6 +144,13 @@ export default function ReferenceFilesPanel({ procedure, procedureTitle, initial
                 <p className="text-sm text-steel-600">
                   {fileKindLabel(file.contentType)} · {formatBytes(file.sizeBytes)}
                 </p>
+                <CaptionEditor
+                  file={file}
+                  onSaved={(saved) => {
+                    setFiles((list) => list.map((f) => (f.id === saved.id ? saved : f)));
+                    setStatus({ kind: 'done', message: saved.caption ? `✓ Caption of ${saved.originalName} saved.` : `✓ Caption of ${saved.originalName} cleared.` });
+                  }}
+                />
               </div>
               {confirming === file.id ? (
                 <div className="flex flex-wrap items-center gap-2" role="group" aria-label={`Delete ${file.originalName}?`}>

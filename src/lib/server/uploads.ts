@@ -50,6 +50,8 @@ export interface UploadView {
   contentType: string;
   sizeBytes: number;
   createdAt: Date;
+  /** Reference files only; null without one. */
+  caption: string | null;
   /** The procedure's slug (bench photos always have one). */
   procedure: string | null;
   /** True once an instructor attached it to a sign-off; it can no longer be deleted. */
@@ -83,6 +85,7 @@ export function referenceFileJson(u: UploadView): ReferenceFileJson {
     id: u.id,
     procedure: u.procedure ?? '',
     originalName: u.originalName,
+    caption: u.caption,
     contentType: u.contentType,
     sizeBytes: u.sizeBytes,
     createdAt: u.createdAt.toISOString(),
@@ -98,6 +101,7 @@ const viewColumns = {
   contentType: uploads.contentType,
   sizeBytes: uploads.sizeBytes,
   createdAt: uploads.createdAt,
+  caption: uploads.caption,
   procedure: procedures.slug,
   attached,
 };
@@ -124,8 +128,10 @@ export async function saveUpload(input: {
   bytes: Uint8Array;
   /** The name the browser sent, already cleaned for display. */
   originalName: string;
+  caption?: string | null;
 }): Promise<SaveOutcome> {
   const { purpose, ownerId, procedure, bytes, originalName } = input;
+  const caption = input.caption ?? null;
   const kind = UPLOAD_KINDS[purpose];
   const checked = checkUpload({ detected: await detectType(bytes), name: originalName, size: bytes.byteLength }, kind.rule);
   if (!checked.ok) return checked;
@@ -141,7 +147,7 @@ export async function saveUpload(input: {
       if ((await countUploads(purpose, procedure.id, ownerId, tx)) >= kind.max) return null;
       const [inserted] = await tx
         .insert(uploads)
-        .values({ ownerId, purpose, procedureId: procedure.id, storageKey, contentType: checked.contentType, sizeBytes: bytes.byteLength, originalName })
+        .values({ ownerId, purpose, procedureId: procedure.id, storageKey, contentType: checked.contentType, sizeBytes: bytes.byteLength, originalName, caption })
         .returning({ id: uploads.id, createdAt: uploads.createdAt });
       return inserted!;
     });
@@ -155,7 +161,7 @@ export async function saveUpload(input: {
   }
   return {
     ok: true,
-    upload: { id: row.id, ownerId, originalName, contentType: checked.contentType, sizeBytes: bytes.byteLength, createdAt: row.createdAt, procedure: procedure.slug, attached: false },
+    upload: { id: row.id, ownerId, originalName, caption, contentType: checked.contentType, sizeBytes: bytes.byteLength, createdAt: row.createdAt, procedure: procedure.slug, attached: false },
   };
 }
 
@@ -236,6 +242,18 @@ export function readUpload(storageKey: string) {
 }
 
 export type DeleteResult = 'deleted' | 'not-found' | 'attached';
+
+/** Sets a reference file's caption (null: none); the file as listed after, or null when it is gone. */
+export async function setCaption(id: string, caption: string | null): Promise<UploadView | null> {
+  const [updated] = await db
+    .update(uploads)
+    .set({ caption })
+    .where(and(eq(uploads.id, id), eq(uploads.purpose, 'procedure-reference')))
+    .returning({ id: uploads.id });
+  if (!updated) return null;
+  const [row] = await db.select(viewColumns).from(uploads).leftJoin(procedures, eq(procedures.id, uploads.procedureId)).where(eq(uploads.id, id));
+  return row ?? null;
+}
 
 /**
  * Deletes an upload unless a sign-off uses it; with `ownerId`, only that person's. The caller has decided

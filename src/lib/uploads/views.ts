@@ -14,11 +14,16 @@ export interface BenchPhotoJson {
 }
 
 /** A file attached to a procedure (a spec sheet, a reference photo), as listed to anyone signed in. */
+/** The longest caption a reference file takes (characters). */
+export const CAPTION_MAX = 120;
+
 export interface ReferenceFileJson {
   id: string;
   /** The procedure's slug. */
   procedure: string;
   originalName: string;
+  /** What the file shows, in the author's words; null: the file name stands in. */
+  caption: string | null;
   contentType: string;
   sizeBytes: number;
   createdAt: string;

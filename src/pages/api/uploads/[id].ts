@@ -1,10 +1,11 @@
 import type { APIRoute } from 'astro';
 import { z } from 'zod';
+import { captionUpdateSchema } from '../../../lib/schemas/uploads';
 import { inlineDisposition } from '../../../lib/uploads/disposition';
 import { requireRole } from '../../../lib/server/guard';
-import { jsonError } from '../../../lib/server/http';
+import { jsonError, readJson, validationError } from '../../../lib/server/http';
 import { canEditProcedure } from '../../../lib/server/procedure-drafts';
-import { deleteUpload, readUpload, uploadForViewer } from '../../../lib/server/uploads';
+import { deleteUpload, readUpload, referenceFileJson, setCaption, uploadForViewer } from '../../../lib/server/uploads';
 
 const uuid = z.string().uuid();
 
@@ -62,4 +63,24 @@ export const DELETE: APIRoute = async ({ locals, params }) => {
   if (result === 'not-found') return jsonError(404, 'No such file');
   if (result === 'attached') return jsonError(409, 'This photo is part of a sign-off and stays with it');
   return new Response(null, { status: 204 });
+};
+
+/** A reference file's caption, set or cleared ({caption: null} or blank) by anyone who may edit its procedure. */
+export const PATCH: APIRoute = async ({ locals, params, request }) => {
+  const gate = requireRole(locals);
+  if (!gate.ok) return gate.response;
+  const id = uuid.safeParse(params.id);
+  if (!id.success) return jsonError(404, 'No such file');
+  const upload = await uploadForViewer(gate.user, id.data);
+  if (!upload) return jsonError(404, 'No such file');
+  if (upload.purpose !== 'procedure-reference') return jsonError(400, 'Only a reference file takes a caption', { caption: ['Only a reference file takes a caption'] });
+  if (!canEditProcedure(gate.user, upload.procedureCreatedBy)) {
+    return jsonError(403, 'Only the instructor who created this procedure, or an admin, can caption its files');
+  }
+  const body = await readJson(request, 4 * 1024);
+  if (!body.ok) return body.response;
+  const parsed = captionUpdateSchema.safeParse(body.body);
+  if (!parsed.success) return validationError(parsed.error);
+  const updated = await setCaption(id.data, parsed.data.caption);
+  return updated ? Response.json(referenceFileJson(updated)) : jsonError(404, 'No such file');
 };

@@ -33,7 +33,7 @@ async function targetFor(user: SessionUser, purpose: UploadPurpose, slug: string
 }
 
 /**
- * Multipart: file, purpose, procedure. A learner's bench photo of their finished assembly, or a reference
+ * Multipart: file, purpose, procedure (and a caption for a reference file). A learner's bench photo of their finished assembly, or a reference
  * file (photo or PDF) attached to a procedure by someone who may edit it. Both go through the same checks.
  */
 export const POST: APIRoute = async ({ locals, request }) => {
@@ -45,7 +45,11 @@ export const POST: APIRoute = async ({ locals, request }) => {
   if (!read.ok) return read.response;
   const { form } = read;
 
-  const parsed = uploadFieldsSchema.safeParse({ purpose: form.get('purpose') ?? undefined, procedure: form.get('procedure') ?? undefined });
+  const parsed = uploadFieldsSchema.safeParse({
+    purpose: form.get('purpose') ?? undefined,
+    procedure: form.get('procedure') ?? undefined,
+    caption: form.get('caption') ?? undefined,
+  });
   if (!parsed.success) return validationError(parsed.error);
   const { purpose } = parsed.data;
   const file = form.get('file');
@@ -64,6 +68,7 @@ export const POST: APIRoute = async ({ locals, request }) => {
     procedure: target.procedure,
     bytes: new Uint8Array(await file.arrayBuffer()),
     originalName: cleanFileName(file.name, purpose === 'bench-photo' ? 'photo' : 'file'),
+    caption: parsed.data.caption,
   });
   if (!saved.ok) {
     const status = saved.reason === 'too-large' ? 413 : saved.reason === 'full' ? 409 : 400;
