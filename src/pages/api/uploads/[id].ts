@@ -5,9 +5,21 @@ import { inlineDisposition } from '../../../lib/uploads/disposition';
 import { requireRole } from '../../../lib/server/guard';
 import { jsonError, readJson, validationError } from '../../../lib/server/http';
 import { canEditProcedure } from '../../../lib/server/procedure-drafts';
-import { deleteUpload, readUpload, referenceFileJson, setCaption, uploadForViewer } from '../../../lib/server/uploads';
+import { deleteUpload, readUpload, referenceFileJson, setCaption, uploadForViewer, type StoredUpload } from '../../../lib/server/uploads';
+import type { SessionUser } from '../../../lib/roles';
 
 const uuid = z.string().uuid();
+
+type Found = { ok: true; user: SessionUser; upload: StoredUpload } | { ok: false; response: Response };
+
+/** Signed in, a well-formed id, and a file this person may see; anything else answers as no such file. */
+async function visibleUpload(locals: App.Locals, rawId: string | undefined): Promise<Found> {
+  const gate = requireRole(locals);
+  if (!gate.ok) return gate;
+  const id = uuid.safeParse(rawId);
+  const upload = id.success ? await uploadForViewer(gate.user, id.data) : null;
+  return upload ? { ok: true, user: gate.user, upload } : { ok: false, response: jsonError(404, 'No such file') };
+}
 
 /**
  * The file's bytes. A procedure's reference file: anyone signed in. A bench photo: its owner, instructors
@@ -15,12 +27,9 @@ const uuid = z.string().uuid();
  * bytes, never sniffed again by the browser, under the name it was uploaded with.
  */
 export const GET: APIRoute = async ({ locals, params }) => {
-  const gate = requireRole(locals);
-  if (!gate.ok) return gate.response;
-  const id = uuid.safeParse(params.id);
-  if (!id.success) return jsonError(404, 'No such file');
-  const upload = await uploadForViewer(gate.user, id.data);
-  if (!upload) return jsonError(404, 'No such file');
+  const found = await visibleUpload(locals, params.id);
+  if (!found.ok) return found.response;
+  const { upload } = found;
   const object = await readUpload(upload.storageKey);
   if (!object) return jsonError(404, 'The file is no longer stored');
   // The S3 client hands back a plain ArrayBuffer-backed array; its type only allows for shared memory.
@@ -44,21 +53,18 @@ export const GET: APIRoute = async ({ locals, params }) => {
  * A reference file: anyone who may edit its procedure (its creator, admins), whoever uploaded it; others 403.
  */
 export const DELETE: APIRoute = async ({ locals, params }) => {
-  const gate = requireRole(locals);
-  if (!gate.ok) return gate.response;
-  const id = uuid.safeParse(params.id);
-  if (!id.success) return jsonError(404, 'No such file');
-  const upload = await uploadForViewer(gate.user, id.data);
-  if (!upload) return jsonError(404, 'No such file');
+  const found = await visibleUpload(locals, params.id);
+  if (!found.ok) return found.response;
+  const { user, upload } = found;
   let result;
   if (upload.purpose === 'procedure-reference') {
-    if (!canEditProcedure(gate.user, upload.procedureCreatedBy)) {
+    if (!canEditProcedure(user, upload.procedureCreatedBy)) {
       return jsonError(403, 'Only the instructor who created this procedure, or an admin, can remove its files');
     }
-    result = await deleteUpload(id.data);
+    result = await deleteUpload(upload.id);
   } else {
-    if (upload.ownerId !== gate.user.id) return jsonError(403, 'Only the learner who uploaded a photo can delete it');
-    result = await deleteUpload(id.data, gate.user.id);
+    if (upload.ownerId !== user.id) return jsonError(403, 'Only the learner who uploaded a photo can delete it');
+    result = await deleteUpload(upload.id, user.id);
   }
   if (result === 'not-found') return jsonError(404, 'No such file');
   if (result === 'attached') return jsonError(409, 'This photo is part of a sign-off and stays with it');
@@ -67,20 +73,17 @@ export const DELETE: APIRoute = async ({ locals, params }) => {
 
 /** A reference file's caption, set or cleared ({caption: null} or blank) by anyone who may edit its procedure. */
 export const PATCH: APIRoute = async ({ locals, params, request }) => {
-  const gate = requireRole(locals);
-  if (!gate.ok) return gate.response;
-  const id = uuid.safeParse(params.id);
-  if (!id.success) return jsonError(404, 'No such file');
-  const upload = await uploadForViewer(gate.user, id.data);
-  if (!upload) return jsonError(404, 'No such file');
+  const found = await visibleUpload(locals, params.id);
+  if (!found.ok) return found.response;
+  const { user, upload } = found;
   if (upload.purpose !== 'procedure-reference') return jsonError(400, 'Only a reference file takes a caption', { caption: ['Only a reference file takes a caption'] });
-  if (!canEditProcedure(gate.user, upload.procedureCreatedBy)) {
+  if (!canEditProcedure(user, upload.procedureCreatedBy)) {
     return jsonError(403, 'Only the instructor who created this procedure, or an admin, can caption its files');
   }
   const body = await readJson(request, 4 * 1024);
   if (!body.ok) return body.response;
   const parsed = captionUpdateSchema.safeParse(body.body);
   if (!parsed.success) return validationError(parsed.error);
-  const updated = await setCaption(id.data, parsed.data.caption);
+  const updated = await setCaption(upload.id, parsed.data.caption);
   return updated ? Response.json(referenceFileJson(updated)) : jsonError(404, 'No such file');
 };
