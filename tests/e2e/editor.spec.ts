@@ -178,6 +178,115 @@ test('an instructor builds a four-bolt cover procedure, publishes it, assigns it
   await expect(page.locator(`[data-drill-id="${drill.id}"]`)).toContainText('Passed');
 });
 
+/** Where the fastener group's 3D view draws a hole or bolt, in viewport pixels (the scene's own test hook). */
+async function projected(page: Page, scene: string, key: string): Promise<{ x: number; y: number }> {
+  await page.getByTestId(`bolt-scene-${scene}`).scrollIntoViewIfNeeded();
+  const point = await page.evaluate(
+    ([s, k]) => (window as unknown as { __bwScenes: Record<string, { project(k: string): { x: number; y: number } | null }> }).__bwScenes[s]!.project(k),
+    [scene, key] as const,
+  );
+  if (!point) throw new Error(`no screen position for ${key}`);
+  return point;
+}
+
+/** Bolt key → the number drawn on it, in the 3D view's tags or on the 2D bolt map. */
+async function numbers(page: Page, selector: string): Promise<Record<string, string>> {
+  return page.locator(selector).evaluateAll((nodes) => Object.fromEntries(nodes.map((n) => [n.getAttribute('data-bolt'), n.textContent?.trim()])));
+}
+
+test('an instructor picks bolt positions on the 3D part, and the list, the bolt map and the model agree on the sequence', async ({ page }) => {
+  await signIn(page, 'instructor@larkspur.example');
+  await page.goto('/teach/procedures');
+  await page.getByRole('button', { name: 'New procedure' }).click();
+  await expect(page.getByRole('heading', { name: 'New procedure', level: 1 })).toBeVisible();
+  await page.getByLabel('Title').fill(`Sump cover picked on the model ${randomUUID().slice(0, 4)}`);
+  for (const name of ['Crankcase (block)', 'Sump cover (cover)', 'Flange bolt M6 (bolt)']) await addPart(page, name);
+  await part(page, 'Flange bolt M6').getByLabel('In the kit').fill('4');
+  await page.getByRole('button', { name: 'Add a fastener group' }).click();
+  const group = page.getByRole('group', { name: 'Fastener group 1' });
+  await group.getByLabel('Group name').fill('Cover bolts');
+  await expect(group.getByLabel('Fastener part')).toHaveValue('flange-bolt');
+
+  // project() answers in viewport pixels: the whole canvas must fit on screen.
+  await page.setViewportSize({ width: 1280, height: 1100 });
+  const scene = page.getByTestId('bolt-scene-group-1');
+  await scene.scrollIntoViewIfNeeded();
+  await expect(group).toContainText('Click a threaded hole to put a bolt in it');
+  await page.waitForFunction(() => Boolean((window as unknown as { __bwScenes?: Record<string, unknown> }).__bwScenes?.['group-1']), null, { timeout: 60_000 });
+
+  const holeBox = (hole: string) => group.getByLabel(`Sump bolt ${hole.slice(-1)} · threaded · 6\u00a0mm`);
+  const sequence = page.getByRole('list', { name: 'Accepted tightening sequence' });
+  const onModel = '[data-testid="bolt-scene-group-1"] [data-scene-label="order"]';
+  const onMap = '[data-testid="bolt-preview-0"] g[data-bolt]';
+
+  // Every other sump bolt hole, clicked where the 3D view draws it.
+  for (const hole of COVER_BOLT_HOLES) {
+    const { x, y } = await projected(page, 'group-1', hole);
+    await page.mouse.click(x, y);
+    await expect(holeBox(hole)).toBeChecked();
+  }
+  // Cross pattern for four bolts round a circle: 1-3-2-4 (from memory of ASME PCC-1), here holes 1, 5, 3, 7.
+  const cross = { 'bolt-1': '1', 'bolt-5': '2', 'bolt-3': '3', 'bolt-7': '4' };
+  await expect(sequence).toHaveText(['Bolt 1', 'Bolt 5', 'Bolt 3', 'Bolt 7'].join(''));
+  await expect.poll(() => numbers(page, onModel)).toEqual(cross);
+  expect(await numbers(page, onMap)).toEqual(cross);
+  await page.mouse.move(5, 5);
+  await scene.scrollIntoViewIfNeeded();
+  await group.screenshot({ path: 'test-results/screens/editor-bolts-on-model.png' });
+
+  // A click on a bolt takes it out: the list, the map and the model all lose it and renumber alike.
+  const { x, y } = await projected(page, 'group-1', 'bolt-3');
+  await page.mouse.click(x, y);
+  await expect(holeBox('sump-bolt-3')).not.toBeChecked();
+  await expect(sequence.getByRole('listitem')).toHaveCount(3);
+  const listed = (await sequence.getByRole('listitem').allTextContents()).map((t) => `bolt-${t.replace('Bolt ', '')}`);
+  const three = Object.fromEntries(listed.map((key, i) => [key, String(i + 1)]));
+  expect(Object.keys(three).sort()).toEqual(['bolt-1', 'bolt-5', 'bolt-7']);
+  await expect.poll(() => numbers(page, onModel)).toEqual(three);
+  expect(await numbers(page, onMap)).toEqual(three);
+  await page.mouse.move(5, 5);
+  await scene.scrollIntoViewIfNeeded();
+  await group.screenshot({ path: 'test-results/screens/editor-bolt-removed-on-model.png' });
+
+  // Back in on the model; the draft saves it as it saves the list's changes, and it comes back after a reload.
+  const hole3 = await projected(page, 'group-1', 'sump-bolt-3');
+  type Saved = { document: { fastenerGroups: { bolts: { anchor: string }[] }[] } };
+  const anchorsSaved = (body: Saved) => body.document.fastenerGroups[0]?.bolts.map((b) => b.anchor).join(',');
+  const saved = page.waitForResponse(
+    (r) => r.request().method() === 'PUT' && r.ok() && anchorsSaved(r.request().postDataJSON() as Saved) === COVER_BOLT_HOLES.join(','),
+  );
+  await page.mouse.click(hole3.x, hole3.y);
+  await expect(holeBox('sump-bolt-3')).toBeChecked();
+  await expect(sequence).toHaveText(['Bolt 1', 'Bolt 5', 'Bolt 3', 'Bolt 7'].join(''));
+  await saved;
+  await page.reload();
+  await expect(sequence).toHaveText(['Bolt 1', 'Bolt 5', 'Bolt 3', 'Bolt 7'].join(''));
+  await page.getByTestId('bolt-scene-group-1').scrollIntoViewIfNeeded();
+  await expect.poll(() => numbers(page, onModel), { timeout: 60_000 }).toEqual(cross);
+});
+
+test('without WebGL the editor says so where the 3D view would be, and the list and bolt map still do the job', async ({ page }) => {
+  // A device without WebGL: every WebGL context request is refused, as such a browser does.
+  await page.addInitScript(() => {
+    const getContext = HTMLCanvasElement.prototype.getContext;
+    HTMLCanvasElement.prototype.getContext = function (this: HTMLCanvasElement, kind: string, ...rest: unknown[]) {
+      return /webgl/i.test(kind) ? null : (getContext as (...a: unknown[]) => RenderingContext | null).call(this, kind, ...rest);
+    } as typeof getContext;
+  });
+  await signIn(page, 'instructor@larkspur.example');
+  await page.goto('/teach/procedures');
+  await page.getByRole('button', { name: 'New procedure' }).click();
+  await expect(page.getByRole('heading', { name: 'New procedure', level: 1 })).toBeVisible();
+  for (const name of ['Crankcase (block)', 'Flange bolt M6 (bolt)']) await addPart(page, name);
+  await page.getByRole('button', { name: 'Add a fastener group' }).click();
+  const group = page.getByRole('group', { name: 'Fastener group 1' });
+  await expect(group).toContainText('The 3D view could not start on this device. The list above does the same.');
+  for (const hole of COVER_BOLT_HOLES) await group.getByLabel(`Sump bolt ${hole.slice(-1)} · threaded · 6\u00a0mm`).check();
+  // Cross pattern for four bolts round a circle: 1-3-2-4 (from memory of ASME PCC-1), here holes 1, 5, 3, 7.
+  await expect(page.getByRole('list', { name: 'Accepted tightening sequence' })).toHaveText(['Bolt 1', 'Bolt 5', 'Bolt 3', 'Bolt 7'].join(''));
+  await expect(page.getByTestId('bolt-preview-0').locator('g[data-bolt]')).toHaveCount(4);
+});
+
 test('a learner is refused the editor pages; another instructor cannot open a draft', async ({ page }) => {
   await signIn(page, 'instructor@larkspur.example');
   await page.goto('/teach/procedures');

@@ -3,10 +3,11 @@ import { describe, expect, it } from 'vitest';
 import { Client, demoUser } from './helpers/client';
 import { THREE_SIGNATURE, assetUrls, pageHtml, reachable } from './helpers/bundles';
 
-// three.js is heavy: only the trainer page may load it. Reads the built chunks each page asks for (dist/client),
-// follows their imports, and looks for three.js's own marks in them.
+// three.js is heavy: only the trainer page may load it up front, and the procedure editor only lazily, for its
+// 3D bolt picker. Reads the built chunks each page asks for (dist/client), follows their imports, and looks for
+// three.js's own marks in them.
 
-describe('three.js stays out of every page but the trainer', () => {
+describe('three.js stays out of every page but the trainer and the editor\'s lazy bolt picker', () => {
   it('the signature finds three.js in its own build', () => {
     // Guards the check below: a signature that never matches would pass every page.
     expect(readFileSync('node_modules/three/build/three.core.js', 'utf8')).toMatch(THREE_SIGNATURE);
@@ -28,12 +29,17 @@ describe('three.js stays out of every page but the trainer', () => {
     });
   }
 
-  it('the procedure editor loads no three.js, not even lazily (its bolt map is 2D)', async () => {
+  it('the procedure editor loads no three.js up front; its 3D bolt picker brings it when it is shown', async () => {
     const { client } = await demoUser('instructor@larkspur.example');
     const draft = await client.post('/api/procedure-drafts', {});
     const html = await pageHtml(client, `/teach/procedures/drafts/${draft.body.id}`);
     expect(html).toMatch(/component-url="\/_astro\/ProcedureEditor\./);
-    for (const [url, code] of reachable(assetUrls(html), true)) expect(code, url).not.toMatch(THREE_SIGNATURE);
+    for (const [url, code] of reachable(assetUrls(html), false)) expect(code, url).not.toMatch(THREE_SIGNATURE);
+    const lazily = [...reachable(assetUrls(html), true)];
+    const picker = lazily.find(([url]) => /\/BoltScene\.[^/]+\.js$/.test(url));
+    expect(picker, 'the bolt picker is a chunk of its own').toBeDefined();
+    const fromPicker = reachable([picker![0]], false);
+    expect([...fromPicker.values()].some((code) => THREE_SIGNATURE.test(code))).toBe(true);
   });
 
   it('/train/wren-160-sump mounts the trainer island, which brings three.js with it', async () => {

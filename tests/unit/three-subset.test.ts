@@ -17,8 +17,9 @@ const pascal = (tag: string) => tag.charAt(0).toUpperCase() + tag.slice(1);
 
 describe('three.js subset given to react-three-fiber in the build', () => {
   const used = new Set<string>();
-  // Only the scene's files render into the Canvas; the panels' SVG has a <line> that is not three's Line.
-  for (const file of ['src/components/trainer/Scene.tsx', ...tsxFiles('src/components/trainer/scene')]) {
+  // Only the scenes' files render into a Canvas (the trainer's and the editor's bolt picker); the panels' SVG
+  // has a <line> that is not three's Line.
+  for (const file of ['src/components/trainer/Scene.tsx', ...tsxFiles('src/components/trainer/scene'), ...tsxFiles('src/components/editor/scene')]) {
     for (const [, tag] of readFileSync(file, 'utf8').matchAll(/<([a-z][A-Za-z0-9]*)[\s/>]/g)) {
       // Only tags that name a three.js class are 3D elements; div, button … are DOM.
       if (tag && pascal(tag) in THREE) used.add(tag);

@@ -1,24 +1,20 @@
-import { useFormContext, useWatch } from 'react-hook-form';
 import { boltLabel } from '../trainer/labels';
 import { boltMap } from '../trainer/bolt-map';
-import { tighteningPreview } from '../../lib/editor/preview';
-import type { EditorValues } from '../../lib/editor/values';
+import type { TighteningPreview } from '../../lib/editor/preview';
+import type { Vec3 } from '../../lib/procedure/schema';
 
 // The tightening rule's accepted sequence on a map of the bolts, seen from the bolt heads: the number on
-// each bolt is its place in one sequence the rule accepts (the trainer accepts any the rule allows).
+// each bolt is its place in one sequence the rule accepts (the trainer accepts any the rule allows). The
+// preview is the one the 3D picker numbers too. Plain SVG, so it works where WebGL does not.
 
 const SIZE = 240;
 const PAD = 28;
 
-export function BoltPreview({ index }: { index: number }) {
-  const { control } = useFormContext<EditorValues>();
-  const group = useWatch({ control, name: `fastenerGroups.${index}` });
-  const anchors = useWatch({ control, name: 'anchors' });
-  const preview = tighteningPreview(group, anchors);
+export function BoltPreview({ index, axis, preview }: { index: number; axis: Vec3; preview: TighteningPreview | null }) {
   if (!preview) return null;
   if (!preview.ok) return <p className="text-sm text-steel-600">{preview.message}</p>;
 
-  const spots = boltMap(preview.bolts, group.axis);
+  const spots = boltMap(preview.bolts, axis);
   const extent = Math.max(1e-9, ...spots.map((s) => Math.hypot(s.x, s.y)));
   const scale = (SIZE / 2 - PAD) / extent;
   const order = new Map(preview.sequence.map((key, i) => [key, i + 1] as const));
@@ -31,7 +27,7 @@ export function BoltPreview({ index }: { index: number }) {
           <circle r={SIZE / 2 - 4} fill="#ffffff" stroke="#c5d3dc" />
           <circle r={2} fill="#9db3c2" />
           {spots.map((s) => (
-            <g key={s.key} transform={`translate(${s.x * scale} ${-s.y * scale})`}>
+            <g key={s.key} data-bolt={s.key} transform={`translate(${s.x * scale} ${-s.y * scale})`}>
               <circle r={14} fill="#c9871f" stroke="#703f1a" />
               <text textAnchor="middle" dominantBaseline="central" fontSize={13} fontWeight={700} fill="#121a20">
                 {order.get(s.key)}

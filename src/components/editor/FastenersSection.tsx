@@ -1,17 +1,22 @@
+import { useMemo } from 'react';
 import { Controller, useFieldArray, useFormContext, useWatch } from 'react-hook-form';
 import { PATTERN_RULES, TORQUE_UNIT_IDS } from '../../lib/procedure/schema';
 import { RULE_DESCRIPTIONS } from '../../lib/patterns';
+import { boltScene } from '../../lib/editor/bolt-scene';
 import { anchorAxis, anchorsOfParts, boltKeyFor, withAnchors } from '../../lib/editor/library';
+import { tighteningPreview } from '../../lib/editor/preview';
 import { uniqueSlug } from '../../lib/editor/slug';
 import type { EditorValues } from '../../lib/editor/values';
 import { holeLabel } from '../trainer/labels';
+import { BoltModelView } from './BoltModelView';
 import { BoltPreview } from './BoltPreview';
 import { FieldIssue, useIssueProps } from './FieldIssue';
 import { PassesField } from './PassesField';
 import { Section } from './Section';
 
 // Fastener groups: the bolt part, the holes it goes into (picked from the threaded holes of the parts in
-// the kit), the torque spec and passes, and the tightening rule, previewed as a numbered bolt map.
+// the kit, in the list or on the 3D part), the torque spec and passes, and the tightening rule, previewed
+// as numbers on the 3D part and on a bolt map, both from one preview so they always agree.
 
 const FASTENER_KINDS = ['bolt', 'nut', 'spark-plug'];
 
@@ -56,13 +61,17 @@ function GroupEditor({ index, onRemove }: { index: number; onRemove: () => void 
   const { register, control, getValues, setValue } = useFormContext<EditorValues>();
   const parts = useWatch({ control, name: 'parts' });
   const group = useWatch({ control, name: `fastenerGroups.${index}` });
+  const anchors = useWatch({ control, name: 'anchors' });
   const at = `fastenerGroups.${index}`;
+  const preview = useMemo(() => tighteningPreview(group, anchors), [group, anchors]);
+  const scene = useMemo(() => boltScene(parts, group, preview), [parts, group, preview]);
   const part = parts.find((p) => p.key === group.part);
   // A nut threads onto a shaft end (the flywheel nut); everything else goes into a threaded hole.
   const holes = anchorsOfParts(parts, part?.kind === 'nut' ? ['threaded-hole', 'shaft-end'] : ['threaded-hole']);
   const chosen = new Set(group.bolts.map((b) => b.anchor));
   const otherBoltKeys = getValues('fastenerGroups').flatMap((g, gi) => (gi === index ? [] : g.bolts.map((b) => b.key)));
 
+  // The list's checkboxes and the 3D picker both change the bolts through this.
   const toggle = (anchorKey: string, on: boolean) => {
     // Bolts stay in the library's hole order, so hole 1 is listed first whatever order they were ticked in.
     const keep = holes.map((h) => h.anchor.key).filter((k) => (k === anchorKey ? on : chosen.has(k)));
@@ -129,6 +138,11 @@ function GroupEditor({ index, onRemove }: { index: number; onRemove: () => void 
             <FieldIssue path={`${at}.bolts.${bi}.key`} />
           </div>
         ))}
+        {holes.length > 0 && (
+          <div className="mt-3">
+            <BoltModelView index={index} groupName={group.name} scene={scene} onToggle={toggle} />
+          </div>
+        )}
       </fieldset>
 
       <div className="grid gap-3 sm:grid-cols-3">
@@ -189,7 +203,7 @@ function GroupEditor({ index, onRemove }: { index: number; onRemove: () => void 
         <p className="mt-1 text-sm text-steel-600">{RULE_DESCRIPTIONS[group.rule]}</p>
       </div>
 
-      <BoltPreview index={index} />
+      <BoltPreview index={index} axis={group.axis} preview={preview} />
     </fieldset>
   );
 }

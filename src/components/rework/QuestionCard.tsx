@@ -1,4 +1,5 @@
-import { Component, Suspense, lazy, useEffect, useRef, useState, type ReactNode } from 'react';
+import { Suspense, lazy, useEffect, useRef, useState, type ReactNode } from 'react';
+import { SceneBoundary } from '../SceneBoundary';
 import type { PublicProcedure } from '../../lib/procedure/public-view';
 import { newClientId } from '../trainer/CheckStage';
 import { STAGE_LABELS } from '../trainer/labels';
@@ -202,7 +203,7 @@ function ModelView({ item, selected, marks, onPick }: { item: ReworkItem; select
   if (failed) return <SceneNote>{failed} The list beside it works on its own.</SceneNote>;
   if (!procedure) return <SceneNote>Loading the 3D view…</SceneNote>;
   return (
-    <SceneBoundary>
+    <SceneBoundary fallback={<SceneNote>The 3D view could not start on this device. Answer from the list.</SceneNote>}>
       <Suspense fallback={<SceneNote>Loading the 3D view…</SceneNote>}>
         <QuestionScene
           key={`${item.id}:${question.variant}`}
@@ -220,16 +221,4 @@ function ModelView({ item, selected, marks, onPick }: { item: ReworkItem; select
 
 function SceneNote({ children }: { children: ReactNode }) {
   return <div className="flex h-[20rem] items-center justify-center rounded-xl border border-steel-200 bg-steel-100 p-6 text-center text-steel-700 sm:h-[24rem]">{children}</div>;
-}
-
-/** Without WebGL the list still answers the question: say so and carry on. */
-class SceneBoundary extends Component<{ children: ReactNode }, { failed: boolean }> {
-  state = { failed: false };
-  static getDerivedStateFromError() {
-    return { failed: true };
-  }
-  render() {
-    if (this.state.failed) return <SceneNote>The 3D view could not start on this device. Answer from the list.</SceneNote>;
-    return this.props.children;
-  }
 }

@@ -1,4 +1,5 @@
-import { Component, Suspense, lazy, useEffect, useMemo, useRef, useState, type ComponentType, type LazyExoticComponent, type ReactNode } from 'react';
+import { Suspense, lazy, useEffect, useMemo, useRef, useState, type ComponentType, type LazyExoticComponent, type ReactNode } from 'react';
+import { SceneBoundary } from '../SceneBoundary';
 import type { PublicProcedure } from '../../lib/procedure/public-view';
 import type { Stage } from '../../lib/procedure/schema';
 import { CheckStage } from './CheckStage';
@@ -103,7 +104,7 @@ function TrainerLayout() {
       <div className={wide ? 'grid grid-cols-[minmax(0,3fr)_minmax(0,2fr)] items-start gap-4' : 'space-y-4'}>
         <div className={wide ? 'sticky top-4 min-w-0 space-y-2' : 'min-w-0 space-y-2'}>
           {/* The scene sizes its own canvas and puts "Reset view" under it; the slider follows. */}
-          <SceneBoundary>
+          <SceneBoundary fallback={<SceneMessage>The 3D view could not start on this device. Every stage works from the panel beside it.</SceneMessage>}>
             <Suspense fallback={<SceneMessage>Loading the 3D view…</SceneMessage>}>
               <Scene />
             </Suspense>
@@ -170,18 +171,4 @@ function SceneMessage({ children }: { children: ReactNode }) {
       {children}
     </div>
   );
-}
-
-/** Without WebGL (or if the view fails) the lists still do every stage: say so and carry on. */
-class SceneBoundary extends Component<{ children: ReactNode }, { failed: boolean }> {
-  state = { failed: false };
-  static getDerivedStateFromError() {
-    return { failed: true };
-  }
-  render() {
-    if (this.state.failed) {
-      return <SceneMessage>The 3D view could not start on this device. Every stage works from the panel beside it.</SceneMessage>;
-    }
-    return this.props.children;
-  }
 }

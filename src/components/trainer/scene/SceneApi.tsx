@@ -6,7 +6,8 @@ import type { SceneLayout } from './layout';
 import { scenePoint } from './points';
 
 // The hook end-to-end tests read: draw calls of the last frame, and where a bolt, hole or part is on
-// screen (CSS pixels in the viewport), so a test can click it like a person would.
+// screen (CSS pixels in the viewport), so a test can click it like a person would. A page with one 3D view
+// publishes it as `window.__bwScene`; a page with several (the editor's fastener groups) names each one.
 
 export interface SceneApi {
   drawCalls(): number;
@@ -16,10 +17,11 @@ export interface SceneApi {
 declare global {
   interface Window {
     __bwScene?: SceneApi;
+    __bwScenes?: Record<string, SceneApi>;
   }
 }
 
-export function SceneApiHook({ layout }: { layout: SceneLayout }) {
+export function SceneApiHook({ layout, name }: { layout: SceneLayout; name?: string }) {
   const store = useTrainerStore();
   const gl = useThree((s) => s.gl);
   const camera = useThree((s) => s.camera);
@@ -29,9 +31,16 @@ export function SceneApiHook({ layout }: { layout: SceneLayout }) {
   const latest = useRef(layout);
   latest.current = layout;
 
-  useEffect(() => () => {
-    delete window.__bwScene;
-  }, []);
+  const published = useRef(false);
+  // A view renamed (an editor group moved up a place) publishes itself again under its new name.
+  useEffect(() => {
+    published.current = false;
+    invalidate();
+    return () => {
+      if (name === undefined) delete window.__bwScene;
+      else delete window.__bwScenes?.[name];
+    };
+  }, [name, invalidate]);
 
   // Published on the second frame, so at least one frame has been drawn when a test finds it.
   useFrame(() => {
@@ -40,8 +49,9 @@ export function SceneApiHook({ layout }: { layout: SceneLayout }) {
       invalidate();
       return;
     }
-    if (frames.current !== 2) return;
-    window.__bwScene = {
+    if (published.current) return;
+    published.current = true;
+    const api: SceneApi = {
       drawCalls: () => gl.info.render.calls,
       project: (key) => {
         const { procedure, stage, explode, drafts } = store.getState();
@@ -56,6 +66,8 @@ export function SceneApiHook({ layout }: { layout: SceneLayout }) {
         return { x: rect.left + ((scratch.x + 1) / 2) * rect.width, y: rect.top + ((1 - scratch.y) / 2) * rect.height };
       },
     };
+    if (name === undefined) window.__bwScene = api;
+    else (window.__bwScenes ??= {})[name] = api;
   });
   return null;
 }

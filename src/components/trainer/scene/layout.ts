@@ -249,13 +249,13 @@ const LEAN = (35 * Math.PI) / 180;
 /**
  * Unit direction from the scene's centre to the home camera: from the front right, square to the bolt
  * axis so the exploded gap shows, then leaned 35° toward the side the fasteners go in from, so the
- * holes and bolt heads face the learner.
+ * holes and bolt heads face the learner. A larger `lean` (radians) looks more squarely onto the holes.
  */
-export function viewDirection(boltAxis: Vec3 = [0, -1, 0]): Vector3 {
+export function viewDirection(boltAxis: Vec3 = [0, -1, 0], lean = LEAN): Vector3 {
   const axis = new Vector3(...boltAxis).normalize();
   const square = new Vector3(0.55, 0.35, 1);
   square.addScaledVector(axis, -square.dot(axis)).normalize();
-  return square.multiplyScalar(Math.cos(LEAN)).addScaledVector(axis, -Math.sin(LEAN)).normalize();
+  return square.multiplyScalar(Math.cos(lean)).addScaledVector(axis, -Math.sin(lean)).normalize();
 }
 
 /** Screen right and screen up for a camera looking back along `view` with world +Y up. */
