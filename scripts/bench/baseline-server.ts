@@ -13,12 +13,13 @@ import { queueMisses } from '../../src/lib/server/rework-queue';
 // app's own writer, so both servers do the same database work and the ratio measures what the app adds.
 // Run as a child of the benchmark.
 
-const { DATABASE_URL, PORT, BENCH_USER_ID } = process.env;
-if (!DATABASE_URL || !PORT || !BENCH_USER_ID) {
-  console.error('baseline-server needs DATABASE_URL, PORT and BENCH_USER_ID');
+const { DATABASE_URL, PORT, BENCH_USER_IDS } = process.env;
+if (!DATABASE_URL || !PORT || !BENCH_USER_IDS) {
+  console.error('baseline-server needs DATABASE_URL, PORT and BENCH_USER_IDS');
   process.exit(1);
 }
-const userId = BENCH_USER_ID;
+// No sessions here: a request names its learner in a header, one of the run's own.
+const learners = new Set(BENCH_USER_IDS.split(','));
 
 // Same pool size as the app's db module, so both have the same number of database connections.
 const pool = new pg.Pool({ connectionString: DATABASE_URL, max: 10 });
@@ -38,6 +39,8 @@ async function readBody(req: IncomingMessage): Promise<string> {
 }
 
 async function postAttempt(req: IncomingMessage, res: ServerResponse): Promise<void> {
+  const userId = req.headers['x-bench-learner'];
+  if (typeof userId !== 'string' || !learners.has(userId)) return send(res, 400, { error: 'Name one of the run\'s learners in x-bench-learner' });
   let body: unknown;
   try {
     body = JSON.parse(await readBody(req));

@@ -10,10 +10,16 @@ export interface AttemptBody {
   answer: unknown;
 }
 
+/** Who a request is sent as: the app reads the session cookie, the baseline the learner's id in a header. */
+export interface Sender {
+  headers: Record<string, string>;
+}
+
 export interface LoadOptions {
   label: string;
   origin: string;
-  cookie?: string;
+  /** Requests go to these in turn: one learner, or a class of them. */
+  senders: Sender[];
   connections: number;
   seconds: number;
   bodies: AttemptBody[];
@@ -34,28 +40,25 @@ export interface LoadResult {
   rowsWritten: number;
 }
 
-function requestFor(options: Pick<LoadOptions, 'cookie' | 'bodies'>): RequestOptions {
+function requestFor(options: Pick<LoadOptions, 'senders' | 'bodies'>): RequestOptions {
   let next = 0;
-  const headers: Record<string, string> = { 'content-type': 'application/json' };
-  if (options.cookie) headers.cookie = options.cookie;
   return {
     method: 'POST',
     path: '/api/attempts',
-    headers,
     setupRequest: (request) => {
-      const body = options.bodies[next++ % options.bodies.length]!;
-      return { ...request, body: JSON.stringify({ ...body, clientId: randomUUID() }) };
+      const sender = options.senders[next % options.senders.length]!;
+      const body = options.bodies[next % options.bodies.length]!;
+      next += 1;
+      return { ...request, headers: { 'content-type': 'application/json', ...sender.headers }, body: JSON.stringify({ ...body, clientId: randomUUID() }) };
     },
   };
 }
 
 /** One request outside autocannon, so a refusal shows its body instead of only a status code. */
-export async function preflight(options: Pick<LoadOptions, 'label' | 'origin' | 'cookie' | 'bodies'>): Promise<void> {
-  const headers: Record<string, string> = { 'content-type': 'application/json' };
-  if (options.cookie) headers.cookie = options.cookie;
+export async function preflight(options: Pick<LoadOptions, 'label' | 'origin' | 'senders' | 'bodies'>): Promise<void> {
   const response = await fetch(`${options.origin}/api/attempts`, {
     method: 'POST',
-    headers,
+    headers: { 'content-type': 'application/json', ...options.senders[0]!.headers },
     body: JSON.stringify({ ...options.bodies[0], clientId: randomUUID() }),
   });
   if (response.status !== 201) {

@@ -1,17 +1,18 @@
 import { cpus } from 'node:os';
 import { databaseUrl } from '../lib/config.mjs';
 import { answerCases } from './answers';
-import { benchLearnerEmail, createBenchLearner } from './bench-user';
+import { benchLearnerEmail, createBenchLearner, type BenchLearner } from './bench-user';
 import type { RunningServer } from './child-server';
 import { openDatabase } from './db';
-import { preflight, runLoad, type AttemptBody, type LoadResult } from './endpoint';
+import { preflight, runLoad, type AttemptBody, type LoadResult, type Sender } from './endpoint';
 import { largestDemoProcedure } from './procedure';
 import { printComparison, printFailure, printLoad, printScoring } from './report';
 import { benchmarkScoring } from './scoring';
 import { appIsBuilt, startApp, startBaseline } from './servers';
 
 // npm run bench: scoring alone, then POST /api/attempts on the built app and on a bare node:http
-// baseline. A report, not a test: no figure is compared with a limit; only failed requests fail it.
+// baseline, sent by a class of learners and by one learner. A report, not a test: no figure is compared
+// with a limit; only failed requests fail it.
 
 const CONNECTIONS = 20;
 const WARM_UP_SECONDS = 2;
@@ -27,8 +28,8 @@ function benchSeconds(): number {
   return seconds;
 }
 
-async function measure(server: RunningServer, bodies: AttemptBody[], seconds: number, countRows: () => Promise<number>, cookie?: string) {
-  const common = { origin: server.origin, cookie, connections: CONNECTIONS, bodies, countRows };
+async function measure(server: RunningServer, senders: Sender[], bodies: AttemptBody[], seconds: number, countRows: () => Promise<number>) {
+  const common = { origin: server.origin, senders, connections: CONNECTIONS, bodies, countRows };
   await preflight({ ...common, label: server.name });
   // The first seconds fill the connection pool and let the JIT settle; they are not reported.
   await runLoad({ ...common, label: `${server.name} warm-up`, seconds: WARM_UP_SECONDS });
@@ -38,6 +39,15 @@ async function measure(server: RunningServer, bodies: AttemptBody[], seconds: nu
 }
 
 const failures = (r: LoadResult) => r.non2xx + r.errors + r.timeouts;
+
+/**
+ * Who sends: a class of learners, a connection each (a class checking its work at once), and one learner
+ * on every connection (the worst case for the rework queue: every miss lands on the same few items).
+ */
+const SCENARIOS = [
+  { name: `a class: ${CONNECTIONS} learners, one connection each`, learners: CONNECTIONS },
+  { name: `one learner on all ${CONNECTIONS} connections`, learners: 1 },
+] as const;
 
 async function main(): Promise<number> {
   const seconds = benchSeconds();
@@ -53,14 +63,20 @@ async function main(): Promise<number> {
   }
   const url = databaseUrl('dev');
   const db = openDatabase(url);
-  const email = benchLearnerEmail();
+  const emails = Array.from({ length: CONNECTIONS }, benchLearnerEmail);
   const running: RunningServer[] = [];
   let cleaned: Promise<void> | null = null;
   const cleanUp = () =>
     (cleaned ??= (async () => {
       await Promise.all(running.map((s) => s.stop()));
-      const removed = await db.deleteUserByEmail(email);
-      console.log(`\n  Clean-up: servers stopped; removed ${removed.users} temporary learner and its ${removed.attempts} attempt rows.`);
+      let users = 0;
+      let rows = 0;
+      for (const email of emails) {
+        const removed = await db.deleteUserByEmail(email);
+        users += removed.users;
+        rows += removed.attempts;
+      }
+      console.log(`\n  Clean-up: servers stopped; removed ${users} temporary learners and their ${rows} attempt rows.`);
       await db.close();
     })());
   const onSignal = (signal: NodeJS.Signals) => void cleanUp().finally(() => process.exit(signal === 'SIGINT' ? 130 : 143));
@@ -69,22 +85,31 @@ async function main(): Promise<number> {
 
   try {
     console.log(`\n== Endpoint runs: ${CONNECTIONS} connections, ${WARM_UP_SECONDS} s warm-up + ${seconds} s measured, one server at a time`);
-    const app = await startApp(url);
+    let app = await startApp(url);
     running.push(app);
-    const learner = await createBenchLearner(app.origin, email);
-    console.log(`  Signed in as a temporary learner made for this run (${learner.email}).`);
+    const learners: BenchLearner[] = [];
+    for (const email of emails) learners.push(await createBenchLearner(app.origin, email));
+    console.log(`  Signed in as ${learners.length} temporary learners made for this run.`);
     const bodies: AttemptBody[] = cases.map((c) => ({ procedure: procedure.slug, stage: c.stage, answer: c.answer }));
-    const countRows = () => db.attemptRowsOf(learner.id);
 
-    const appResult = await measure(app, bodies, seconds, countRows, learner.cookie);
-    await app.stop();
-    const baseline = await startBaseline(url, learner.id);
-    running.push(baseline);
-    const baseResult = await measure(baseline, bodies, seconds, countRows);
-    await baseline.stop();
-
-    printComparison(appResult, baseResult, CONNECTIONS, seconds);
-    const failed = [appResult, baseResult].filter((r) => failures(r) > 0);
+    const failed: LoadResult[] = [];
+    for (const [index, scenario] of SCENARIOS.entries()) {
+      const group = learners.slice(0, scenario.learners);
+      const countRows = () => db.attemptRowsOf(group.map((l) => l.id));
+      console.log(`\n-- ${scenario.name}`);
+      if (index > 0) {
+        app = await startApp(url);
+        running.push(app);
+      }
+      const appResult = await measure(app, group.map((l) => ({ headers: { cookie: l.cookie } })), bodies, seconds, countRows);
+      await app.stop();
+      const baseline = await startBaseline(url, group.map((l) => l.id));
+      running.push(baseline);
+      const baseResult = await measure(baseline, group.map((l) => ({ headers: { 'x-bench-learner': l.id } })), bodies, seconds, countRows);
+      await baseline.stop();
+      printComparison(scenario.name, appResult, baseResult, CONNECTIONS, seconds);
+      failed.push(...[appResult, baseResult].filter((r) => failures(r) > 0));
+    }
     failed.forEach(printFailure);
     return failed.length > 0 ? 1 : 0;
   } finally {

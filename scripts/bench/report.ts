@@ -54,8 +54,8 @@ export function printLoad(result: LoadResult): void {
   );
 }
 
-export function printComparison(app: LoadResult, baseline: LoadResult, connections: number, seconds: number): void {
-  console.log(`\n== POST /api/attempts, ${connections} connections, ${seconds} s each, loopback`);
+export function printComparison(scenario: string, app: LoadResult, baseline: LoadResult, connections: number, seconds: number): void {
+  console.log(`\n== POST /api/attempts, ${scenario}: ${connections} connections, ${seconds} s each, loopback`);
   console.log(
     table(
       ['server', 'req/s', 'p50 ms', 'p99 ms', 'non-2xx', 'errors'],

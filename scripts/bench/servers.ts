@@ -23,13 +23,13 @@ export async function startApp(databaseUrl: string): Promise<RunningServer> {
   });
 }
 
-/** The bare node:http server doing the same database and scoring work for one fixed learner. */
-export async function startBaseline(databaseUrl: string, userId: string): Promise<RunningServer> {
+/** The bare node:http server doing the same database and scoring work, for the learners given. */
+export async function startBaseline(databaseUrl: string, userIds: string[]): Promise<RunningServer> {
   const port = await freeLoopbackPort();
   return startServer({
     name: 'baseline',
     args: ['--import', 'tsx', BASELINE_ENTRY],
-    env: { PORT: String(port), DATABASE_URL: databaseUrl, BENCH_USER_ID: userId },
+    env: { PORT: String(port), DATABASE_URL: databaseUrl, BENCH_USER_IDS: userIds.join(',') },
     port,
     readyPath: '/health',
   });
