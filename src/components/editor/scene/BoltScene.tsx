@@ -1,6 +1,5 @@
 import { useEffect, useMemo, useState } from 'react';
 import { useFrame, useThree } from '@react-three/fiber';
-import { Html } from '@react-three/drei';
 import { Box3, Vector3 } from 'three';
 import type { BoltSceneView } from '~/lib/editor/bolt-scene';
 import type { PublicProcedure } from '~/lib/procedure/public-view';
@@ -12,6 +11,7 @@ import { PartMesh } from '../../trainer/scene/PartMesh';
 import { buildLayout, viewDirection, type HomeView, type SceneLayout } from '../../trainer/scene/layout';
 import { anchorOffset, partFactors, scenePoint, type SceneView } from '../../trainer/scene/points';
 import { SceneApiHook } from '../../trainer/scene/SceneApi';
+import { SceneTag } from '../../trainer/scene/SceneTag';
 import { toneFor, type Tone, type Verdict } from '../../trainer/scene/tones';
 import { Viewport } from '../../trainer/scene/Viewport';
 import { createTrainerStore, type TrainerStore } from '../../trainer/store';
@@ -184,16 +184,9 @@ function PickerLabels({ layout, scene }: DrawnProps) {
   return (
     <>
       {tags.map((tag) => (
-        <Html key={tag.id} position={tag.at} center zIndexRange={[tag.kind === 'hover' ? 15 : 10, 0]} style={{ pointerEvents: 'none' }}>
-          <div
-            aria-hidden="true"
-            data-scene-label={tag.kind}
-            data-bolt={tag.bolt}
-            className={`whitespace-nowrap rounded-md px-1.5 py-0.5 text-xs font-semibold shadow ${TAG_STYLE[tag.kind]}`}
-          >
-            {tag.text}
-          </div>
-        </Html>
+        <SceneTag key={tag.id} at={tag.at} kind={tag.kind} tone={TAG_STYLE[tag.kind]} zIndex={tag.kind === 'hover' ? 15 : 10} bolt={tag.bolt}>
+          {tag.text}
+        </SceneTag>
       ))}
     </>
   );

@@ -1,11 +1,11 @@
 import { useMemo } from 'react';
-import { Html } from '@react-three/drei';
 import type { Vector3 } from 'three';
 import type { PublicProcedure } from '~/lib/procedure/public-view';
 import { boltLabel, holeLabel, pinSize, readableKey } from '../labels';
 import { useTrainer } from '../context';
 import type { SceneLayout } from './layout';
 import { type SceneView, scenePoint } from './points';
+import { SceneTag } from './SceneTag';
 import type { Verdict } from './tones';
 
 // Words floating in the scene: the name of what is hovered or focused, ✗ / ✓ on what the server
@@ -100,15 +100,9 @@ export function Labels({ layout, marks }: { layout: SceneLayout; marks: Map<stri
   return (
     <>
       {labels.map((label) => (
-        <Html key={label.id} position={label.at} center zIndexRange={[label.kind === 'hover' ? 40 : 20, 0]} style={{ pointerEvents: 'none' }}>
-          <div
-            aria-hidden="true"
-            data-scene-label={label.kind}
-            className={`whitespace-nowrap rounded-md px-1.5 py-0.5 text-xs font-semibold shadow ${STYLE[label.kind]}`}
-          >
-            {label.text}
-          </div>
-        </Html>
+        <SceneTag key={label.id} at={label.at} kind={label.kind} tone={STYLE[label.kind]} zIndex={label.kind === 'hover' ? 40 : 20}>
+          {label.text}
+        </SceneTag>
       ))}
     </>
   );

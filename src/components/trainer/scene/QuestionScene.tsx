@@ -1,6 +1,5 @@
 import { useEffect, useMemo, useState } from 'react';
 import { useFrame, useThree } from '@react-three/fiber';
-import { Html } from '@react-three/drei';
 import { Box3, Vector3 } from 'three';
 import type { PublicProcedure } from '~/lib/procedure/public-view';
 import type { QuestionModel } from '~/lib/rework/questions';
@@ -11,6 +10,7 @@ import { Holes } from './Holes';
 import { PartMesh } from './PartMesh';
 import { anchorAxis, buildLayout, viewDirection, type HomeView, type SceneLayout } from './layout';
 import { SceneApiHook } from './SceneApi';
+import { SceneTag } from './SceneTag';
 import { Viewport } from './Viewport';
 import { anchorOffset, partFactors, scenePoint, type SceneView } from './points';
 import { type Tone, type Verdict, toneFor } from './tones';
@@ -180,11 +180,9 @@ function QuestionLabels({ layout, model, choices, selected, marks }: QuestionSce
   return (
     <>
       {tags.map((tag) => (
-        <Html key={tag.id} position={tag.at} center zIndexRange={[tag.kind === 'hover' ? 40 : 20, 0]} style={{ pointerEvents: 'none' }}>
-          <div aria-hidden="true" data-scene-label={tag.kind} className={`whitespace-nowrap rounded-md px-1.5 py-0.5 text-xs font-semibold shadow ${TAG_STYLE[tag.kind]}`}>
-            {tag.text}
-          </div>
-        </Html>
+        <SceneTag key={tag.id} at={tag.at} kind={tag.kind} tone={TAG_STYLE[tag.kind]} zIndex={tag.kind === 'hover' ? 40 : 20}>
+          {tag.text}
+        </SceneTag>
       ))}
     </>
   );
