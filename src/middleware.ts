@@ -1,6 +1,17 @@
 import { defineMiddleware, sequence } from 'astro:middleware';
 import { lucia } from './lib/server/auth';
+import { jsonError } from './lib/server/http';
+import { NUL_MESSAGE } from './lib/text/nul';
 import { clearSessionCookie, readSessionId, refreshSessionCookie } from './lib/server/session-cookie';
+
+// A NUL character in the address would reach the database in a route's parameter or query (PostgreSQL
+// text cannot hold it): refused here for every page and endpoint, before anything looks at it.
+const refuseNulInAddress = defineMiddleware((context, next) => {
+  const { pathname, search } = context.url;
+  if (!/%00/.test(pathname + search)) return next();
+  if (pathname.startsWith('/api/')) return jsonError(400, `The address is not valid: ${NUL_MESSAGE}`);
+  return new Response(`Bad request: the address contains a NUL character.\n`, { status: 400, headers: { 'content-type': 'text/plain; charset=utf-8' } });
+});
 
 // Always sets locals.user and locals.session, null included; pages and endpoints authorize themselves.
 const session = defineMiddleware(async (context, next) => {
@@ -31,4 +42,4 @@ const noStoreForApi = defineMiddleware(async (context, next) => {
   return response;
 });
 
-export const onRequest = sequence(session, noStoreForApi);
+export const onRequest = sequence(refuseNulInAddress, session, noStoreForApi);

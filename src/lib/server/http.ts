@@ -1,4 +1,5 @@
 import type { ZodError } from 'zod';
+import { hasNul, NUL_MESSAGE } from '../text/nul';
 
 // Small helpers so every endpoint answers errors in one shape: { error, fields? }.
 
@@ -38,11 +39,13 @@ export async function readJson(request: Request, maxBytes?: number): Promise<Jso
   } catch {
     return { ok: false, response: jsonError(400, 'The body could not be read') };
   }
+  let body: unknown;
   try {
-    return { ok: true, body: JSON.parse(text) };
+    body = JSON.parse(text);
   } catch {
     return { ok: false, response: jsonError(400, 'The body is not valid JSON') };
   }
+  return hasNul(body) ? { ok: false, response: jsonError(400, NUL_MESSAGE) } : { ok: true, body };
 }
 
 export type BodyWithin =

@@ -1,4 +1,5 @@
 import { jsonError, readBodyWithin, type BodyWithin } from './http';
+import { hasNul, NUL_MESSAGE } from '../text/nul';
 
 type FormResult = { ok: true; form: FormData } | { ok: false; response: Response };
 
@@ -24,12 +25,15 @@ export async function readMultipartWithin(request: Request, maxBytes: number, to
     return { ok: false, response: body.announced || body.drained ? refused : closing(refused) };
   }
   if (body.kind === 'absent') return { ok: false, response: jsonError(400, 'The form is empty', { file: ['Choose a file'] }) };
+  let form: FormData;
   try {
-    const form = await new Response(body.bytes, { headers: { 'content-type': type } }).formData();
-    return { ok: true, form };
+    form = await new Response(body.bytes, { headers: { 'content-type': type } }).formData();
   } catch {
     return { ok: false, response: jsonError(400, 'The form could not be read as multipart/form-data') };
   }
+  // Text fields only: a file's bytes may hold anything (its name is cleaned where it is kept).
+  const texts = [...form].flatMap(([name, value]) => (typeof value === 'string' ? [name, value] : [name]));
+  return hasNul(texts) ? { ok: false, response: jsonError(400, NUL_MESSAGE) } : { ok: true, form };
 }
 
 /**

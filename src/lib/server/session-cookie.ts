@@ -19,8 +19,13 @@ export function clearSessionCookie(cookies: AstroCookies): void {
   cookies.set(cookie.name, cookie.value, cookie.attributes);
 }
 
+// Session ids are lowercase base32 (lucia's generateIdFromEntropySize); anything else names no session and
+// never reaches the database (a NUL in it would make the lookup fail).
+const SESSION_ID = /^[a-z0-9]{1,128}$/;
+
 export function readSessionId(cookies: AstroCookies): string | null {
-  return cookies.get(lucia.sessionCookieName)?.value ?? null;
+  const value = cookies.get(lucia.sessionCookieName)?.value;
+  return value && SESSION_ID.test(value) ? value : null;
 }
 
 export async function endSession(cookies: AstroCookies, sessionId: string | undefined): Promise<void> {
