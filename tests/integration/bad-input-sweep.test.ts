@@ -176,7 +176,11 @@ describe('no API route answers 500 to bad input', () => {
 // Pages take their ids and slugs from the address too: a malformed one, one that names nothing, or a NUL
 // in the address or the query gets a page that says so (404, 403, 400), or the sign-in page, never a 500.
 const PAGE_DIR = 'src/pages';
-const pages = routeFiles(PAGE_DIR, '.astro').map((file) => '/' + relative(PAGE_DIR, file).replace(/\.astro$/, '').replace(/(^|\/)index$/, ''));
+const pageFiles = routeFiles(PAGE_DIR, '.astro');
+const pathOf = (file: string) => '/' + relative(PAGE_DIR, file).replace(/\.astro$/, '').replace(/(^|\/)index$/, '');
+const pages = pageFiles.map(pathOf);
+/** Pages that take their own form posts (found by the check they start with). */
+const formPages = pageFiles.filter((file) => readFileSync(file, 'utf8').includes("request.method === 'POST'")).map(pathOf);
 
 describe('no page answers 500 to a bad address', () => {
   it('finds the pages to sweep', () => {
@@ -193,6 +197,28 @@ describe('no page answers 500 to a bad address', () => {
             const res = await caller.client.request('GET', path + query, undefined, caller.headers);
             expect(res.status, `${caller.name}: GET ${path}${query}`).toBeLessThan(500);
           }
+        }
+      }
+    });
+  }
+});
+
+describe('no page answers 500 to a bad form post', () => {
+  it('finds the pages that take forms', () => {
+    expect(formPages).toEqual(expect.arrayContaining(['/sign-in', '/sign-up', '/teach/procedures']));
+  });
+
+  for (const page of formPages) {
+    it(`POST ${page}`, async () => {
+      const forms = [
+        ...BAD_BODIES,
+        { name: 'a form with a NUL in every field', body: new URLSearchParams(Object.fromEntries(['email', 'password', 'name', 'joinCode', 'token', 'action', 'slug', 'role', 'userId', 'draft'].map((k) => [k, 'a\u0000b']))).toString(), type: 'application/x-www-form-urlencoded' },
+        { name: 'an empty form', body: '', type: 'application/x-www-form-urlencoded' },
+      ];
+      for (const caller of callers) {
+        for (const bad of forms) {
+          const res = await caller.client.request('POST', page, bad.body, { origin: BASE_URL, 'content-type': bad.type, ...caller.headers });
+          expect(res.status, `${caller.name}: POST ${page} with ${bad.name}`).toBeLessThan(500);
         }
       }
     });
