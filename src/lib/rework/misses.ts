@@ -22,6 +22,11 @@ export interface Miss {
   missKind: MissKind;
 }
 
+/** Whether an attempt has anything for the queue to look at: the mark an attempt is stored with until it has. */
+export function hasFailedLines(results: readonly StepResult[]): boolean {
+  return results.some((line) => !line.ok);
+}
+
 /**
  * Each failed line, once, when a question can be built for it. Lines about things the procedure does
  * not have (an unknown step key typed by a client) are left out: there is nothing to practise.

@@ -2,6 +2,7 @@ import type { attempts } from '../../db/schema';
 import type { AttemptRequest } from '../schemas/attempts';
 import type { StageScore, StepResult } from '../scoring/types';
 import { withoutAnswers } from '../drills/answers';
+import { hasFailedLines } from '../rework/misses';
 
 // Pure pieces of an attempt, shared by the endpoint and the benchmark's bare baseline so both write
 // the very same row and answer the very same JSON.
@@ -42,7 +43,7 @@ export function attemptRow(
     results: score.results,
     notes: score.notes ?? [],
     // Cleared by the rework queue once the failed lines are in it; a learner's next visit queues what a fault left.
-    reworkPending: score.results.some((line) => !line.ok),
+    reworkPending: hasFailedLines(score.results),
   };
 }
 

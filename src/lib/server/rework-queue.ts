@@ -3,7 +3,7 @@ import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import * as schema from '../../db/schema';
 import type { Procedure, Stage } from '../procedure/schema';
 import type { StepResult } from '../scoring/types';
-import { missesOf, type Miss } from '../rework/misses';
+import { hasFailedLines, missesOf, type Miss } from '../rework/misses';
 import { fromStored, newCard, refreshAfterMiss, toStored } from '../rework/schedule';
 
 // The rework queue's writer, on any database handle: the app passes its own (rework.ts), the demo seed
@@ -36,7 +36,10 @@ export async function queueMisses(database: Database, attempt: MissedAttempt): P
     if (round === MAX_ROUNDS) throw new Error(`rework items of attempt ${attempt.attemptId} kept changing under it: ${pending.map((m) => m.itemKey).join(', ')}`);
     pending = await queueRound(database, attempt, pending);
   }
-  await database.update(attempts).set({ reworkPending: false }).where(and(eq(attempts.id, attempt.attemptId), eq(attempts.reworkPending, true)));
+  // Only an attempt stored with failed lines was marked (attemptRow); the others cost no statement here.
+  if (hasFailedLines(attempt.results)) {
+    await database.update(attempts).set({ reworkPending: false }).where(and(eq(attempts.id, attempt.attemptId), eq(attempts.reworkPending, true)));
+  }
 }
 
 /**
