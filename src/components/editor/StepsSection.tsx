@@ -9,7 +9,7 @@ import type { EditorValues } from '../../lib/editor/values';
 import { FieldIssue, useIssueProps } from './FieldIssue';
 import { PrecedenceGraph } from './PrecedenceGraph';
 import { Section } from './Section';
-import { stepListAnnouncements, useStepListSensors } from '../step-list-dnd';
+import { stepListAccessibility, useStepListSensors } from '../step-list-dnd';
 
 // Steps as learners read them, in order. Drag a step (or use the buttons, or pick it up with Space and move
 // it with the arrows); mark a step that may come in any order with the one before it. The list and marks are
@@ -87,7 +87,7 @@ export function StepsSection() {
     const key = fields.find((f) => f.id === id)?.key;
     return getValues('steps').find((s) => s.key === key)?.text || 'a step with no text yet';
   };
-  const announcements = stepListAnnouncements(position, short);
+  const accessibility = stepListAccessibility(position, short);
 
   return (
     <Section
@@ -112,12 +112,7 @@ export function StepsSection() {
           sensors={sensors}
           collisionDetection={closestCenter}
           onDragEnd={onDragEnd}
-          accessibility={{
-            announcements,
-            screenReaderInstructions: {
-              draggable: 'To move a step, press Space or Enter to pick it up, the up and down arrows to move it, and Space or Enter again to drop it. Escape puts it back.',
-            },
-          }}
+          accessibility={accessibility}
         >
           <SortableContext items={fields.map((f) => f.id)} strategy={verticalListSortingStrategy}>
             <ol className="space-y-3" aria-label="Steps in order">

@@ -4,7 +4,7 @@ import { SortableContext, useSortable, verticalListSortingStrategy } from '@dnd-
 import { CSS } from '@dnd-kit/utilities';
 import type { PublicStep } from '../../../lib/procedure/public-view';
 import { useTrainer } from '../context';
-import { stepListAnnouncements, useStepListSensors } from '../../step-list-dnd';
+import { stepListAccessibility, useStepListSensors } from '../../step-list-dnd';
 
 // Order: take steps from the pile one by one, then fix the order by drag, by keyboard (the handle
 // picks up with Space and moves with the arrows) or with the move buttons.
@@ -67,7 +67,7 @@ export default function OrderStage() {
   };
   const position = (id: string | number) => sequence.indexOf(String(id)) + 1;
   const short = (id: string | number) => byKey.get(String(id))?.text ?? String(id);
-  const announcements = stepListAnnouncements(position, short);
+  const accessibility = stepListAccessibility(position, short);
 
   return (
     <div className="space-y-6">
@@ -108,12 +108,7 @@ export default function OrderStage() {
             sensors={sensors}
             collisionDetection={closestCenter}
             onDragEnd={onDragEnd}
-            accessibility={{
-              announcements,
-              screenReaderInstructions: {
-                draggable: 'To move a step, press Space or Enter to pick it up, the up and down arrows to move it, and Space or Enter again to drop it. Escape puts it back.',
-              },
-            }}
+            accessibility={accessibility}
           >
             <SortableContext items={sequence} strategy={verticalListSortingStrategy}>
               <ol className="mt-2 space-y-2">
