@@ -1,10 +1,9 @@
 import type { APIRoute } from 'astro';
 import { signOffListQuerySchema, signOffRequestSchema } from '../../../../lib/schemas/sign-offs';
 import { classTaughtBy } from '../../../../lib/server/class-access';
-import { db } from '../../../../lib/server/db';
 import { requireRole } from '../../../../lib/server/guard';
+import { procedureFilter } from '../../../../lib/server/procedure-filter';
 import { jsonError, readJson, validationError } from '../../../../lib/server/http';
-import { findVersion } from '../../../../lib/server/procedure-store';
 import { createSignOff, latestSignOffsForClass, listClassSignOffs, signOffJson } from '../../../../lib/server/sign-offs';
 
 /** An instructor of the class (or an admin) records a learner's bench sign-off. */
@@ -35,12 +34,9 @@ export const GET: APIRoute = async ({ locals, params, url }) => {
     latest: url.searchParams.get('latest') ?? undefined,
   });
   if (!parsed.success) return validationError(parsed.error);
-  let procedureId: string | undefined;
-  if (parsed.data.procedure) {
-    const procedure = await findVersion(db, parsed.data.procedure);
-    if (!procedure) return jsonError(400, `No procedure "${parsed.data.procedure}"`, { procedure: ['No such procedure'] });
-    procedureId = procedure.procedureId;
-  }
+  const procedure = await procedureFilter(parsed.data.procedure);
+  if (!procedure.ok) return procedure.response;
+  const { procedureId } = procedure;
   const filter = { learnerId: parsed.data.learner, procedureId };
   const list = parsed.data.latest === 'true' ? await latestSignOffsForClass(taught.cls.id, filter) : await listClassSignOffs(taught.cls.id, filter);
   return Response.json(list.map(signOffJson));
