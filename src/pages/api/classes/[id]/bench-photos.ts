@@ -2,10 +2,9 @@ import type { APIRoute } from 'astro';
 import { benchPhotoQuerySchema } from '../../../../lib/schemas/sign-offs';
 import { classTaughtBy } from '../../../../lib/server/class-access';
 import { isClassLearner } from '../../../../lib/server/classes';
-import { db } from '../../../../lib/server/db';
 import { requireRole } from '../../../../lib/server/guard';
 import { jsonError, validationError } from '../../../../lib/server/http';
-import { findVersion } from '../../../../lib/server/procedure-store';
+import { procedureFilter } from '../../../../lib/server/procedure-filter';
 import { listBenchPhotos, uploadJson } from '../../../../lib/server/uploads';
 
 /** A learner's bench photos of one procedure, for the class's instructors to pick for a sign-off. */
@@ -22,8 +21,8 @@ export const GET: APIRoute = async ({ locals, params, url }) => {
   if (!(await isClassLearner(taught.cls.id, parsed.data.learner))) {
     return jsonError(400, 'This person is not a learner in this class', { learner: ['Not a learner in this class'] });
   }
-  const procedure = await findVersion(db, parsed.data.procedure);
-  if (!procedure) return jsonError(400, `No procedure "${parsed.data.procedure}"`, { procedure: ['No such procedure'] });
+  const procedure = await procedureFilter(parsed.data.procedure);
+  if (!procedure.ok) return procedure.response;
   const photos = await listBenchPhotos(parsed.data.learner, procedure.procedureId);
   return Response.json(photos.map(uploadJson));
 };
